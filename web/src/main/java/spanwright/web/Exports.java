@@ -1,0 +1,59 @@
+package spanwright.web;
+
+import org.teavm.jso.JSExport;
+import spanwright.io.JsonFacade;
+
+/**
+ * The functions the page calls, compiled by TeaVM to JavaScript and to WebAssembly-GC.
+ * Each one hands a JSON string to {@link JsonFacade} and returns its JSON answer unchanged:
+ * no mathematics lives here, so the page, the worker and the command-line tool cannot disagree.
+ * Single-threaded, like the façade; the page calls it from one Web Worker.
+ */
+public final class Exports {
+    private Exports() {}
+
+    @JSExport
+    public static String validate(String scenarioJson) {
+        return JsonFacade.validate(scenarioJson);
+    }
+
+    @JSExport
+    public static String analyze(String scenarioJson, boolean withInputs) {
+        return JsonFacade.analyze(scenarioJson, withInputs);
+    }
+
+    @JSExport
+    public static String startAnalysis(String scenarioJson) {
+        return JsonFacade.startAnalysis(scenarioJson);
+    }
+
+    @JSExport
+    public static String stepAnalysis(int job, int maxInputs) {
+        return JsonFacade.stepAnalysis(job, maxInputs);
+    }
+
+    @JSExport
+    public static String finishAnalysis(int job, boolean withInputs) {
+        return JsonFacade.finishAnalysis(job, withInputs);
+    }
+
+    @JSExport
+    public static String cancelAnalysis(int job) {
+        return JsonFacade.cancelAnalysis(job);
+    }
+
+    @JSExport
+    public static String detail(String scenarioJson, String input) {
+        return JsonFacade.detail(scenarioJson, input);
+    }
+
+    @JSExport
+    public static String encodeShare(String scenarioJson) {
+        return JsonFacade.encodeShare(scenarioJson);
+    }
+
+    @JSExport
+    public static String decodeShare(String fragment) {
+        return JsonFacade.decodeShare(fragment);
+    }
+}
