@@ -1,0 +1,210 @@
+package spanwright.cli;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import spanwright.analysis.Analysis;
+import spanwright.analysis.AnalysisResult;
+import spanwright.io.Json;
+import spanwright.io.NumberText;
+import spanwright.io.ResultJson;
+import spanwright.io.ScenarioException;
+import spanwright.io.ScenarioReader;
+import spanwright.model.Inputs;
+import spanwright.model.Scenario;
+
+/**
+ * The command-line tool: {@code java -jar core/target/spanwright.jar <command> …}.
+ * Exit status: 0 success, 1 the reduction is wrong on some input, 2 invalid scenario or usage.
+ */
+public final class Main {
+    /** Classpath location of the built-in default scenario (a copy of scenarios/default.json). */
+    public static final String DEFAULT_SCENARIO = "/spanwright/scenarios/default.json";
+
+    static final int OK = 0;
+    static final int WRONG_REDUCTION = 1;
+    static final int INVALID = 2;
+
+    private Main() {}
+
+    public static void main(String[] args) {
+        System.exit(run(args, System.out, System.err));
+    }
+
+    /** Runs a command; returns the exit status. Never throws for bad input. */
+    public static int run(String[] args, PrintStream out, PrintStream err) {
+        if (args.length == 0 || args[0].equals("help") || args[0].equals("--help") || args[0].equals("-h")) {
+            out.print(usage());
+            return args.length == 0 ? INVALID : OK;
+        }
+        List<String> rest = new ArrayList<>(List.of(args).subList(1, args.length));
+        try {
+            switch (args[0]) {
+                case "analyze":
+                    return analyze(rest, out, err);
+                case "bench":
+                    return Bench.run(rest, out, err);
+                default:
+                    err.println("spanwright: unknown command \"" + args[0] + "\"");
+                    err.print(usage());
+                    return INVALID;
+            }
+        } catch (UsageException e) {
+            err.println("spanwright: " + e.getMessage());
+            return INVALID;
+        } catch (ScenarioException e) {
+            err.println("spanwright: invalid scenario: " + e.describe() + " [" + e.code() + "]");
+            return INVALID;
+        }
+    }
+
+    static String usage() {
+        return "usage: java -jar spanwright.jar <command> [options]\n"
+                + "\n"
+                + "  analyze [FILE] [--json] [--inputs]\n"
+                + "      Enumerate the scenario's inputs, check the reduction, compute every witness size\n"
+                + "      (R on positive inputs, C on negative inputs) and the bound sqrt(W+ W-).\n"
+                + "      With no FILE, the built-in default scenario. --json: machine-readable output;\n"
+                + "      --inputs: add every input's row.\n"
+                + "  bench [--vars 14] [--vertices 24] [--edges 48] [--scenarios 8] [--seed 1] [--rounds 5]\n"
+                + "      Inputs per second of the analysis on seeded random scenarios (one core).\n"
+                + "\n"
+                + "exit status: 0 ok, 1 reduction wrong on some input, 2 invalid scenario or usage\n";
+    }
+
+    /** Reads a scenario file, or the built-in default when {@code file} is null. */
+    static String readScenarioText(String file) {
+        if (file == null) {
+            try (InputStream in = Main.class.getResourceAsStream(DEFAULT_SCENARIO)) {
+                if (in == null) {
+                    throw new UsageException("the built-in default scenario is missing from the jar");
+                }
+                return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+            } catch (IOException e) {
+                throw new UsageException("cannot read the built-in default scenario: " + e.getMessage());
+            }
+        }
+        try {
+            return Files.readString(Path.of(file), StandardCharsets.UTF_8);
+        } catch (NoSuchFileException e) {
+            throw new UsageException("no such file: " + file);
+        } catch (IOException e) {
+            throw new UsageException("cannot read " + file + ": " + e.getMessage());
+        }
+    }
+
+    private static int analyze(List<String> args, PrintStream out, PrintStream err) {
+        boolean json = false;
+        boolean inputs = false;
+        String file = null;
+        for (String a : args) {
+            if (a.equals("--json")) {
+                json = true;
+            } else if (a.equals("--inputs")) {
+                inputs = true;
+            } else if (a.startsWith("-")) {
+                throw new UsageException("analyze: unknown option " + a);
+            } else if (file == null) {
+                file = a;
+            } else {
+                throw new UsageException("analyze: one FILE at most (got " + file + " and " + a + ")");
+            }
+        }
+        Scenario sc = ScenarioReader.read(readScenarioText(file));
+        for (String w : sc.warnings()) {
+            err.println("spanwright: warning: " + w);
+        }
+        AnalysisResult r = Analysis.run(sc);
+        if (json) {
+            Map<String, Object> m = ResultJson.analysis(r, inputs);
+            out.println(Json.writePretty(m).trim());
+        } else {
+            out.print(summary(r, inputs));
+        }
+        return Boolean.FALSE.equals(r.correct()) ? WRONG_REDUCTION : OK;
+    }
+
+    private static String pad(String s, int width) {
+        StringBuilder sb = new StringBuilder(s);
+        while (sb.length() < width) {
+            sb.append(' ');
+        }
+        return sb.toString();
+    }
+
+    /** The human summary: short, aligned, pasteable into notes. */
+    static String summary(AnalysisResult r, boolean inputs) {
+        Scenario sc = r.scenario();
+        int n = sc.variableCount();
+        StringBuilder sb = new StringBuilder();
+        String title = sc.title().isEmpty() ? "(untitled scenario)" : sc.title();
+        sb.append(title).append('\n');
+        sb.append("  ").append(pad("variables", 12)).append(n).append(" (")
+                .append(String.join(", ", sc.variables())).append(")\n");
+        sb.append("  ").append(pad("domain", 12)).append(r.domainSize()).append(" inputs, ")
+                .append(sc.promise().describe(sc.variables())).append('\n');
+        sb.append("  ").append(pad("graph", 12)).append(sc.vertexCount()).append(" vertices, ")
+                .append(sc.edges().size()).append(" edges, s = ").append(sc.vertices().get(sc.s()).id())
+                .append(", t = ").append(sc.vertices().get(sc.t()).id()).append('\n');
+        if (r.reductionChecked()) {
+            sb.append("  ").append(pad("function", 12)).append(sc.functionText()).append('\n');
+            if (r.counterexampleCount() == 0) {
+                sb.append("  ").append(pad("reduction", 12)).append("correct: s~t connected exactly when f = 1, on all ")
+                        .append(r.domainSize()).append(" inputs\n");
+            } else {
+                sb.append("  ").append(pad("reduction", 12)).append("WRONG on ").append(r.counterexampleCount())
+                        .append(" input(s); first:");
+                int shown = 0;
+                for (long x : r.counterexamples()) {
+                    if (shown++ == 5) {
+                        sb.append(" …");
+                        break;
+                    }
+                    sb.append(' ').append(Inputs.format(x, n)).append(sc.function().eval(x) ? " (f=1, not connected)" : " (f=0, connected)");
+                }
+                sb.append('\n');
+            }
+        } else {
+            sb.append("  ").append(pad("reduction", 12)).append("not checked (no function given)\n");
+        }
+        sb.append("  ").append(pad("positive", 12)).append(pad(r.positiveCount() + " inputs", 14))
+                .append(pad("W+ = max R = " + NumberText.sig(r.maxResistance(), 10), 28))
+                .append(r.worstPositive() < 0 ? "" : "worst " + Inputs.format(r.worstPositive(), n)).append('\n');
+        sb.append("  ").append(pad("negative", 12)).append(pad(r.negativeCount() + " inputs", 14))
+                .append(pad("W- = max C = " + NumberText.sig(r.maxCapacitance(), 10), 28))
+                .append(r.worstNegative() < 0 ? "" : "worst " + Inputs.format(r.worstNegative(), n)).append('\n');
+        sb.append("  ").append(pad("bound", 12)).append("sqrt(W+ W-) = ").append(NumberText.sig(r.complexity(), 10));
+        if (Double.isNaN(r.complexity())) {
+            sb.append(" (undefined: ").append(r.positiveCount() == 0 ? "no positive inputs" : "no negative inputs").append(')');
+        }
+        sb.append('\n');
+        sb.append("  note: ").append(ResultJson.CONVENTION).append(".\n");
+        sb.append("  caution: ").append(ResultJson.CAUTION).append(".\n");
+        if (inputs) {
+            sb.append('\n').append("  input").append(" ".repeat(Math.max(1, n - 3))).append("f  s~t  value\n");
+            for (int i = 0; i < r.domainSize(); i++) {
+                sb.append("  ").append(r.inputString(i)).append("  ")
+                        .append(r.reductionChecked() ? (r.f(i) ? "1" : "0") : "-").append("  ")
+                        .append(r.connected(i) ? "yes  R = " : "no   C = ")
+                        .append(NumberText.sig(r.value(i), 10)).append('\n');
+            }
+        }
+        return sb.toString();
+    }
+
+    /** Bad command-line usage. */
+    static final class UsageException extends RuntimeException {
+        private static final long serialVersionUID = 1L;
+
+        UsageException(String message) {
+            super(message);
+        }
+    }
+}

@@ -1,0 +1,134 @@
+package spanwright.io;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import spanwright.analysis.AnalysisResult;
+import spanwright.analysis.InputDetail;
+import spanwright.model.Edge;
+import spanwright.model.Inputs;
+import spanwright.model.Scenario;
+
+/**
+ * The JSON form of analysis results, shared by {@code analyze --json} and the page. Keys are
+ * documented in {@code docs/cli.md}; they may be added to, never renamed.
+ */
+public final class ResultJson {
+    /** Normalisation stated with every number. */
+    public static final String CONVENTION = "weight = resistance; each edge counted once; "
+            + "R = effective resistance of present edges, C = effective capacitance (1/weight) of absent edges";
+    /** The caution shown with every bound. */
+    public static final String CAUTION = "sqrt(W+ W-) is an asymptotic query-complexity bound for the span-program "
+            + "algorithm (constants not included), not a run-time estimate for real hardware";
+
+    private ResultJson() {}
+
+    /** The result as an ordered JSON object. */
+    public static Map<String, Object> analysis(AnalysisResult r, boolean withInputs) {
+        Scenario sc = r.scenario();
+        int n = sc.variableCount();
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("title", sc.title());
+        m.put("variables", new ArrayList<Object>(sc.variables()));
+        m.put("vertices", sc.vertexCount());
+        m.put("edges", sc.edges().size());
+        m.put("domainSize", r.domainSize());
+        m.put("promise", sc.promise().describe(sc.variables()));
+
+        Map<String, Object> red = new LinkedHashMap<>();
+        red.put("checked", r.reductionChecked());
+        red.put("correct", r.correct() == null ? Json.NULL : r.correct());
+        red.put("counterexampleCount", r.counterexampleCount());
+        List<Object> ce = new ArrayList<>();
+        for (long x : r.counterexamples()) {
+            Map<String, Object> c = new LinkedHashMap<>();
+            c.put("x", Inputs.format(x, n));
+            boolean f = sc.function().eval(x);
+            c.put("f", f ? 1 : 0);
+            c.put("connected", !f);
+            ce.add(c);
+        }
+        red.put("counterexamples", ce);
+        m.put("reduction", red);
+
+        Map<String, Object> pos = new LinkedHashMap<>();
+        pos.put("count", r.positiveCount());
+        pos.put("maxResistance", num(r.maxResistance()));
+        pos.put("worst", r.worstPositive() < 0 ? Json.NULL : Inputs.format(r.worstPositive(), n));
+        m.put("positive", pos);
+        Map<String, Object> neg = new LinkedHashMap<>();
+        neg.put("count", r.negativeCount());
+        neg.put("maxCapacitance", num(r.maxCapacitance()));
+        neg.put("worst", r.worstNegative() < 0 ? Json.NULL : Inputs.format(r.worstNegative(), n));
+        m.put("negative", neg);
+        m.put("complexity", num(r.complexity()));
+        m.put("convention", CONVENTION);
+        m.put("caution", CAUTION);
+        List<Object> warnings = new ArrayList<Object>(sc.warnings());
+        m.put("warnings", warnings);
+
+        Map<String, Object> hist = new LinkedHashMap<>();
+        hist.put("positive", histogram(r.histogram(true, 20)));
+        hist.put("negative", histogram(r.histogram(false, 20)));
+        m.put("histogram", hist);
+
+        if (withInputs) {
+            List<Object> inputs = new ArrayList<>();
+            boolean checked = r.reductionChecked();
+            for (int i = 0; i < r.domainSize(); i++) {
+                Map<String, Object> row = new LinkedHashMap<>();
+                row.put("x", r.inputString(i));
+                row.put("connected", r.connected(i));
+                row.put("f", checked ? (Object) Integer.valueOf(r.f(i) ? 1 : 0) : Json.NULL);
+                row.put("value", r.value(i));
+                inputs.add(row);
+            }
+            m.put("inputs", inputs);
+        }
+        return m;
+    }
+
+    private static Map<String, Object> histogram(AnalysisResult.Histogram h) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("min", num(h.min));
+        m.put("max", num(h.max));
+        List<Object> c = new ArrayList<>();
+        for (long x : h.counts()) {
+            c.add(x);
+        }
+        m.put("counts", c);
+        return m;
+    }
+
+    /** One input's witness: edges with presence, current and energy; vertex potentials. */
+    public static Map<String, Object> detail(Scenario sc, InputDetail d) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("x", d.input);
+        m.put("connected", d.witness.connected);
+        m.put("f", d.f == null ? Json.NULL : (Object) Integer.valueOf(d.f ? 1 : 0));
+        m.put("value", num(d.witness.value));
+        m.put("kind", d.witness.connected ? "resistance" : "capacitance");
+        List<Object> edges = new ArrayList<>();
+        for (int i = 0; i < sc.edges().size(); i++) {
+            Edge e = sc.edges().get(i);
+            Map<String, Object> em = new LinkedHashMap<>();
+            em.put("id", e.id());
+            em.put("present", d.present[i]);
+            em.put("current", d.witness.current[i]);
+            em.put("energy", d.witness.energy[i]);
+            edges.add(em);
+        }
+        m.put("edges", edges);
+        Map<String, Object> pot = new LinkedHashMap<>();
+        for (int v = 0; v < sc.vertexCount(); v++) {
+            pot.put(sc.vertices().get(v).id(), num(d.witness.potential[v]));
+        }
+        m.put("potentials", pot);
+        return m;
+    }
+
+    static Object num(double v) {
+        return Double.isNaN(v) || Double.isInfinite(v) ? Json.NULL : (Object) Double.valueOf(v);
+    }
+}

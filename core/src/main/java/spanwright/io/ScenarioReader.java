@@ -1,0 +1,387 @@
+package spanwright.io;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import spanwright.expr.Expr;
+import spanwright.expr.ExprException;
+import spanwright.expr.ExprParser;
+import spanwright.model.Condition;
+import spanwright.model.Edge;
+import spanwright.model.Inputs;
+import spanwright.model.Promise;
+import spanwright.model.Scenario;
+import spanwright.model.Vertex;
+
+/**
+ * Reads and validates a scenario in format v1 ({@code docs/scenario-format.md}). Every rejection
+ * is a {@link ScenarioException} with a code, a plain message and the JSON path at fault.
+ *
+ * <p>Self-loops carry no current and no charge; they are <b>kept in the file but dropped from the
+ * analysis</b> with a warning (so the user's drawing is not changed behind their back).
+ */
+public final class ScenarioReader {
+    /** Format name expected in the {@code format} key. */
+    public static final String FORMAT = "spanwright-scenario";
+    /** The only version this reader knows. */
+    public static final int VERSION = 1;
+    /**
+     * Largest number of variables whose 2^n inputs are enumerated (2^24 ≈ 16.8 million). A
+     * scenario whose promise lists its inputs explicitly may have up to 63 variables.
+     */
+    public static final int MAX_ENUMERATED_VARIABLES = 24;
+    /** Largest number of variables when the promise is an explicit list of inputs. */
+    public static final int MAX_LISTED_VARIABLES = 63;
+
+    private ScenarioReader() {}
+
+    /** Parses JSON text and validates it. */
+    public static Scenario read(String jsonText) {
+        return fromJson(Json.parse(jsonText));
+    }
+
+    /** Validates a parsed JSON document. */
+    public static Scenario fromJson(Object doc) {
+        Map<String, Object> root = object(doc, "$");
+        Object format = root.get("format");
+        if (format == null) {
+            throw new ScenarioException("format", "$.format",
+                    "missing \"format\": a scenario file starts with \"format\": \"" + FORMAT + "\"");
+        }
+        if (!FORMAT.equals(format)) {
+            throw new ScenarioException("format", "$.format", "unknown format " + show(format)
+                    + "; expected \"" + FORMAT + "\"");
+        }
+        Object version = root.get("version");
+        if (version == null) {
+            throw new ScenarioException("version", "$.version", "missing \"version\" (expected 1)");
+        }
+        if (!(version instanceof Double) || ((Double) version).doubleValue() != VERSION) {
+            throw new ScenarioException("version", "$.version", "unsupported version " + show(version)
+                    + "; this program reads version " + VERSION);
+        }
+        String title = optString(root, "title", "$.title");
+        String notes = optString(root, "notes", "$.notes");
+
+        // variables
+        Object vs = root.get("variables");
+        if (vs == null) {
+            throw new ScenarioException("missing", "$.variables", "missing \"variables\" (a list of names)");
+        }
+        List<Object> varList = array(vs, "$.variables");
+        List<String> variables = new ArrayList<>();
+        for (int i = 0; i < varList.size(); i++) {
+            String p = "$.variables[" + i + "]";
+            String name = string(varList.get(i), p);
+            if (!ExprParser.isName(name)) {
+                throw new ScenarioException("variable-name", p, "\"" + name
+                        + "\" is not a valid variable name (a letter or _, then letters, digits, _ or .)");
+            }
+            if (variables.contains(name)) {
+                throw new ScenarioException("duplicate-id", p, "variable \"" + name + "\" is declared twice");
+            }
+            if (isReserved(name)) {
+                throw new ScenarioException("variable-name", p, "\"" + name
+                        + "\" is a function name of the expression language; choose another name");
+            }
+            variables.add(name);
+        }
+        int n = variables.size();
+
+        // promise (needed to decide the variable limit)
+        Promise promise = readPromise(root.get("promise"), variables);
+        int limit = promise.kind() == Promise.Kind.INPUTS ? MAX_LISTED_VARIABLES : MAX_ENUMERATED_VARIABLES;
+        if (n > limit) {
+            throw new ScenarioException("too-many-variables", "$.variables", n
+                    + " variables is more than the enumeration limit of " + limit
+                    + (limit == MAX_ENUMERATED_VARIABLES
+                            ? " (2^" + limit + " inputs); list the inputs of interest in \"promise\": {\"inputs\": [...]} to go further"
+                            : ""));
+        }
+
+        // function
+        String functionText = null;
+        Expr function = null;
+        Object fo = root.get("function");
+        if (fo != null && fo != Json.NULL) {
+            functionText = string(fo, "$.function");
+            function = expression(functionText, variables, "$.function");
+        }
+
+        // graph
+        Object go = root.get("graph");
+        if (go == null) {
+            throw new ScenarioException("missing", "$.graph", "missing \"graph\"");
+        }
+        Map<String, Object> graph = object(go, "$.graph");
+        Object vo = graph.get("vertices");
+        if (vo == null) {
+            throw new ScenarioException("missing", "$.graph.vertices", "missing \"vertices\"");
+        }
+        List<Object> vlist = array(vo, "$.graph.vertices");
+        List<Vertex> vertices = new ArrayList<>();
+        Map<String, Integer> index = new HashMap<>();
+        for (int i = 0; i < vlist.size(); i++) {
+            String p = "$.graph.vertices[" + i + "]";
+            Map<String, Object> vm = object(vlist.get(i), p);
+            Object ido = vm.get("id");
+            if (ido == null) {
+                throw new ScenarioException("missing", p + ".id", "vertex has no \"id\"");
+            }
+            String id = string(ido, p + ".id");
+            if (id.isEmpty()) {
+                throw new ScenarioException("type", p + ".id", "vertex id is empty");
+            }
+            if (index.containsKey(id)) {
+                throw new ScenarioException("duplicate-id", p + ".id", "vertex id \"" + id + "\" is used twice");
+            }
+            double x = optNumber(vm, "x", p + ".x");
+            double y = optNumber(vm, "y", p + ".y");
+            index.put(id, i);
+            vertices.add(new Vertex(id, x, y));
+        }
+        int s = endpoint(graph, "s", index);
+        int t = endpoint(graph, "t", index);
+        if (s == t) {
+            throw new ScenarioException("same-s-t", "$.graph.t", "s and t are the same vertex \""
+                    + vertices.get(s).id() + "\"; they must differ");
+        }
+
+        Object eo = graph.get("edges");
+        if (eo == null) {
+            throw new ScenarioException("missing", "$.graph.edges", "missing \"edges\"");
+        }
+        List<Object> elist = array(eo, "$.graph.edges");
+        List<Edge> edges = new ArrayList<>();
+        List<String> warnings = new ArrayList<>();
+        Set<String> edgeIds = new HashSet<>();
+        for (int i = 0; i < elist.size(); i++) {
+            String p = "$.graph.edges[" + i + "]";
+            Map<String, Object> em = object(elist.get(i), p);
+            String id = "e" + (i + 1);
+            if (em.get("id") != null && em.get("id") != Json.NULL) {
+                id = string(em.get("id"), p + ".id");
+            }
+            if (!edgeIds.add(id)) {
+                throw new ScenarioException("duplicate-id", p + ".id", "edge id \"" + id + "\" is used twice");
+            }
+            int u = vertexRef(em, "u", p, index);
+            int v = vertexRef(em, "v", p, index);
+            Object wo = em.get("when");
+            if (wo == null) {
+                throw new ScenarioException("missing", p + ".when",
+                        "edge has no \"when\" (a variable, !variable, or 1 for always)");
+            }
+            Condition when = condition(string(wo, p + ".when"), variables, p + ".when");
+            double w = 1.0;
+            Object wt = em.get("weight");
+            if (wt != null && wt != Json.NULL) {
+                if (!(wt instanceof Double)) {
+                    throw new ScenarioException("weight", p + ".weight", "weight must be a number, got " + show(wt));
+                }
+                w = (Double) wt;
+                if (!(w > 0) || Double.isInfinite(w)) {
+                    throw new ScenarioException("weight", p + ".weight", "weight must be a finite number > 0, got "
+                            + Json.write(wt));
+                }
+            } else if (wt == Json.NULL) {
+                throw new ScenarioException("weight", p + ".weight", "weight must be a finite number > 0, got null");
+            }
+            if (u == v) {
+                warnings.add("edge \"" + id + "\" (" + p + ") is a self-loop on \"" + vertices.get(u).id()
+                        + "\"; it carries no current and is left out of the analysis");
+            }
+            edges.add(new Edge(id, u, v, when, w));
+        }
+        return new Scenario(title, notes, variables, functionText, function, promise, vertices, s, t, edges,
+                warnings);
+    }
+
+    private static boolean isReserved(String name) {
+        switch (name) {
+            case "any": case "all": case "parity": case "maj": case "thr": case "exactly": case "atmost":
+                return true;
+            default:
+                return false;
+        }
+    }
+
+    static Expr expression(String text, List<String> variables, String path) {
+        try {
+            return ExprParser.parse(text, variables);
+        } catch (ExprException e) {
+            throw new ScenarioException("expression", path, "column " + e.column() + ": " + e.getMessage()
+                    + " in \"" + text + "\"");
+        }
+    }
+
+    /** Parses an edge condition: {@code a}, {@code !a} or {@code 1}. */
+    public static Condition condition(String text, List<String> variables, String path) {
+        String c = text.trim();
+        if (c.equals("1")) {
+            return Condition.ALWAYS;
+        }
+        boolean positive = true;
+        if (c.startsWith("!")) {
+            positive = false;
+            c = c.substring(1).trim();
+        }
+        int idx = variables.indexOf(c);
+        if (idx < 0) {
+            if (!ExprParser.isName(c)) {
+                throw new ScenarioException("condition", path, "\"" + text
+                        + "\" is not a condition; write a variable (a), its negation (!a), or 1 for always");
+            }
+            throw new ScenarioException("unknown-variable", path, "unknown variable \"" + c
+                    + "\" (declared: " + String.join(", ", variables) + ")");
+        }
+        return Condition.literal(idx, c, positive);
+    }
+
+    private static Promise readPromise(Object po, List<String> variables) {
+        if (po == null || po == Json.NULL) {
+            return Promise.NONE;
+        }
+        int n = variables.size();
+        if (po instanceof String) {
+            String text = (String) po;
+            return Promise.expression(text, expression(text, variables, "$.promise"));
+        }
+        Map<String, Object> pm = object(po, "$.promise");
+        if (pm.size() != 1 || !(pm.containsKey("weights") || pm.containsKey("inputs"))) {
+            throw new ScenarioException("promise", "$.promise",
+                    "a promise is null, an expression string, {\"weights\": [...]} or {\"inputs\": [...]}");
+        }
+        if (pm.containsKey("weights")) {
+            List<Object> wl = array(pm.get("weights"), "$.promise.weights");
+            int[] w = new int[wl.size()];
+            Set<Integer> seen = new HashSet<>();
+            for (int i = 0; i < w.length; i++) {
+                String p = "$.promise.weights[" + i + "]";
+                Object o = wl.get(i);
+                if (!(o instanceof Double) || (Double) o != Math.rint((Double) o)) {
+                    throw new ScenarioException("promise", p, "a Hamming weight is a whole number, got " + show(o));
+                }
+                double d = (Double) o;
+                if (d < 0 || d > n) {
+                    throw new ScenarioException("promise", p, "Hamming weight " + (long) d
+                            + " is outside 0.." + n);
+                }
+                if (!seen.add((int) d)) {
+                    throw new ScenarioException("promise", p, "Hamming weight " + (long) d + " is listed twice");
+                }
+                w[i] = (int) d;
+            }
+            if (w.length == 0) {
+                throw new ScenarioException("empty-domain", "$.promise.weights",
+                        "the list of Hamming weights is empty, so no input is allowed");
+            }
+            return Promise.weights(w);
+        }
+        List<Object> il = array(pm.get("inputs"), "$.promise.inputs");
+        if (il.isEmpty()) {
+            throw new ScenarioException("empty-domain", "$.promise.inputs", "the list of inputs is empty");
+        }
+        long[] x = new long[il.size()];
+        Set<Long> seen = new HashSet<>();
+        for (int i = 0; i < x.length; i++) {
+            String p = "$.promise.inputs[" + i + "]";
+            String str = string(il.get(i), p);
+            long m = Inputs.parse(str, n);
+            if (m < 0) {
+                throw new ScenarioException("input-string", p, "\"" + str + "\" is not an input: write "
+                        + n + " characters 0 or 1, one per variable (" + String.join(", ", variables) + ")");
+            }
+            if (!seen.add(m)) {
+                throw new ScenarioException("input-string", p, "input \"" + str + "\" is listed twice");
+            }
+            x[i] = m;
+        }
+        return Promise.inputs(x);
+    }
+
+    private static int endpoint(Map<String, Object> graph, String key, Map<String, Integer> index) {
+        String p = "$.graph." + key;
+        Object o = graph.get(key);
+        if (o == null || o == Json.NULL) {
+            throw new ScenarioException("missing", p, "missing \"" + key + "\": name the vertex that is " + key);
+        }
+        String id = string(o, p);
+        Integer i = index.get(id);
+        if (i == null) {
+            throw new ScenarioException("unknown-vertex", p, key + " is \"" + id + "\", which is not a vertex");
+        }
+        return i;
+    }
+
+    private static int vertexRef(Map<String, Object> em, String key, String p, Map<String, Integer> index) {
+        Object o = em.get(key);
+        if (o == null) {
+            throw new ScenarioException("missing", p + "." + key, "edge has no \"" + key + "\" endpoint");
+        }
+        String id = string(o, p + "." + key);
+        Integer i = index.get(id);
+        if (i == null) {
+            throw new ScenarioException("unknown-vertex", p + "." + key, "unknown vertex \"" + id + "\"");
+        }
+        return i;
+    }
+
+    // ---------------------------------------------------------------- typed access
+
+    @SuppressWarnings("unchecked")
+    static Map<String, Object> object(Object o, String path) {
+        if (!(o instanceof Map)) {
+            throw new ScenarioException("type", path, "expected an object {…}, got " + show(o));
+        }
+        return (Map<String, Object>) o;
+    }
+
+    @SuppressWarnings("unchecked")
+    static List<Object> array(Object o, String path) {
+        if (!(o instanceof List)) {
+            throw new ScenarioException("type", path, "expected a list […], got " + show(o));
+        }
+        return (List<Object>) o;
+    }
+
+    static String string(Object o, String path) {
+        if (!(o instanceof String)) {
+            throw new ScenarioException("type", path, "expected a string, got " + show(o));
+        }
+        return (String) o;
+    }
+
+    private static String optString(Map<String, Object> m, String key, String path) {
+        Object o = m.get(key);
+        if (o == null || o == Json.NULL) {
+            return "";
+        }
+        return string(o, path);
+    }
+
+    private static double optNumber(Map<String, Object> m, String key, String path) {
+        Object o = m.get(key);
+        if (o == null || o == Json.NULL) {
+            return Double.NaN;
+        }
+        if (!(o instanceof Double)) {
+            throw new ScenarioException("type", path, "expected a number, got " + show(o));
+        }
+        return (Double) o;
+    }
+
+    static String show(Object o) {
+        if (o instanceof Map) {
+            return "an object";
+        }
+        if (o instanceof List) {
+            return "a list";
+        }
+        String s = Json.write(o);
+        return s.length() > 40 ? s.substring(0, 40) + "…" : s;
+    }
+}
