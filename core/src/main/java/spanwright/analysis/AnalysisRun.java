@@ -23,6 +23,13 @@ public final class AnalysisRun {
     /** Counterexamples kept in the result (all are counted). */
     public static final int KEPT_COUNTEREXAMPLES = 100;
 
+    /**
+     * Relative tolerance for ties between witness sizes: a later input replaces the current worst
+     * only if it is larger by more than this fraction, so rounding noise cannot reorder inputs
+     * whose values are equal in exact arithmetic ("first in input order" among maximisers).
+     */
+    public static final double TIE = 1e-12;
+
     static final byte CONNECTED = 1;
     static final byte F_TRUE = 2;
 
@@ -120,7 +127,7 @@ public final class AnalysisRun {
                 fl |= CONNECTED;
                 values[idx] = r;
                 positiveCount++;
-                if (r > maxR) {
+                if (worstPositive < 0 || r > maxR + TIE * maxR) {
                     maxR = r;
                     worstPositive = x;
                 }
@@ -128,7 +135,7 @@ public final class AnalysisRun {
                 double c = -r - 1.0;
                 values[idx] = c;
                 negativeCount++;
-                if (c > maxC) {
+                if (worstNegative < 0 || c > maxC + TIE * maxC) {
                     maxC = c;
                     worstNegative = x;
                 }
