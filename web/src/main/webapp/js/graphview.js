@@ -1,0 +1,244 @@
+/*
+ * The network drawing (Cytoscape.js). Shows the scenario's graph; in focus it shows one input:
+ * present edges solid, absent dashed; currents (width, arrow) or potentials (colour ramp).
+ * Meaning is always carried by shape, line style or text as well as colour.
+ *
+ * Palette (colour-blind safe, lightness-separated): plain literal edges dark blue, negated
+ * literal edges orange-brown, always-present edges grey; s and t black-bordered with their own
+ * shapes (s: diamond, t: square) and labels.
+ */
+(function () {
+  "use strict";
+  const F = self.SwFormat;
+
+  const COLOR_POS = "#1f5fa8";
+  const COLOR_NEG = "#b8620a";
+  const COLOR_ONE = "#6b6b6b";
+  const COLOR_ABSENT = "#9a9a9a";
+
+  function edgeColor(when) {
+    if (when === "1") return COLOR_ONE;
+    return when.charAt(0) === "!" ? COLOR_NEG : COLOR_POS;
+  }
+
+  function GraphView(container, handlers) {
+    this.handlers = handlers;
+    this.tool = "move";
+    this.pendingSource = null;
+    this.scale = 1;        // 1 normal, larger in presentation mode
+    this.cy = cytoscape({
+      container: container,
+      boxSelectionEnabled: false,
+      minZoom: 0.2,
+      maxZoom: 4,
+      style: this.style(),
+      elements: []
+    });
+    const cy = this.cy;
+    const self_ = this;
+    cy.on("tap", function (ev) {
+      if (ev.target === cy) {
+        if (self_.tool === "vertex") { handlers.addVertex(ev.position); }
+        else { self_.clearPending(); handlers.select(null); }
+        return;
+      }
+      const el = ev.target;
+      if (self_.tool === "edge" && el.isNode()) {
+        if (!self_.pendingSource) { self_.pendingSource = el.id(); el.addClass("pending"); return; }
+        const from = self_.pendingSource;
+        self_.clearPending();
+        if (from !== el.id()) handlers.addEdge(from, el.id());
+        return;
+      }
+      handlers.select({ kind: el.isNode() ? "vertex" : "edge", id: el.id() });
+    });
+    cy.on("dragfree", "node", function (ev) {
+      const p = ev.target.position();
+      handlers.moveVertex(ev.target.id(), p.x, p.y);
+    });
+    cy.on("mouseover", "edge", function (ev) { handlers.hover({ kind: "edge", id: ev.target.id() }); });
+    cy.on("mouseover", "node", function (ev) { handlers.hover({ kind: "vertex", id: ev.target.id() }); });
+    cy.on("mouseout", function () { handlers.hover(null); });
+  }
+
+  GraphView.prototype.clearPending = function () {
+    if (this.pendingSource) {
+      const n = this.cy.getElementById(this.pendingSource);
+      if (n) n.removeClass("pending");
+    }
+    this.pendingSource = null;
+  };
+
+  GraphView.prototype.setTool = function (tool) { this.tool = tool; this.clearPending(); };
+
+  GraphView.prototype.style = function () {
+    const k = this.scale || 1;
+    return [
+      { selector: "node", style: {
+        "label": "data(label)", "text-valign": "center", "text-halign": "center",
+        "font-size": 13 * k, "font-family": "system-ui, sans-serif", "color": "#111",
+        "background-color": "#f4f4f4", "border-width": 1.5 * k, "border-color": "#333",
+        "width": 34 * k, "height": 34 * k, "text-wrap": "wrap", "text-max-width": 120 * k,
+        "text-background-color": "#fff", "text-background-opacity": 0
+      } },
+      { selector: "node.role-s", style: { "shape": "diamond", "width": 46 * k, "height": 46 * k, "border-width": 3 * k, "font-weight": "bold" } },
+      { selector: "node.role-t", style: { "shape": "rectangle", "width": 38 * k, "height": 38 * k, "border-width": 3 * k, "font-weight": "bold" } },
+      { selector: "node.ramp", style: { "background-color": "data(fill)", "color": "data(ink)" } },
+      { selector: "node.wide-label", style: { "text-valign": "bottom", "text-margin-y": 4 * k, "text-background-opacity": 0.85, "text-background-padding": 2 } },
+      { selector: "node.ramp.wide-label", style: { "color": "#111" } },
+      { selector: "node:selected", style: { "overlay-color": "#000", "overlay-opacity": 0.15, "border-style": "double", "border-width": 5 * k } },
+      { selector: "node.pending", style: { "border-style": "dotted", "border-width": 5 * k } },
+      { selector: "edge", style: {
+        "curve-style": "bezier", "control-point-step-size": 36 * k,
+        "width": 2.5 * k, "line-color": "data(color)", "label": "data(label)",
+        "font-size": 12 * k, "color": "#111", "text-background-color": "#fff",
+        "text-background-opacity": 0.85, "text-background-padding": 2 * k,
+        "target-arrow-color": "data(color)", "source-arrow-color": "data(color)",
+        "arrow-scale": 1.1 * k
+      } },
+      { selector: "edge.absent", style: { "line-style": "dashed", "line-dash-pattern": [6 * k, 5 * k], "line-color": COLOR_ABSENT, "width": 2 * k } },
+      { selector: "edge.flow", style: { "width": "data(flowWidth)", "arrow-scale": 0.55 } },
+      { selector: "edge.fwd", style: { "target-arrow-shape": "triangle" } },
+      { selector: "edge.back", style: { "source-arrow-shape": "triangle" } },
+      { selector: "edge:selected", style: { "overlay-color": "#000", "overlay-opacity": 0.18, "overlay-padding": 4 } }
+    ];
+  };
+
+  GraphView.prototype.setScale = function (k) {
+    this.scale = k;
+    this.cy.style(this.style());
+  };
+
+  function vertexLabel(id, s, t) {
+    if (id === s) return id === "s" ? "s" : id + "\n(s)";
+    if (id === t) return id === "t" ? "t" : id + "\n(t)";
+    return id;
+  }
+
+  function edgeLabel(e) {
+    const w = e.weight === undefined || e.weight === null ? 1 : e.weight;
+    return String(e.when) + (w === 1 ? "" : " · w=" + F.num(w));
+  }
+
+  /** Draws the scenario's graph (positions from the scenario; missing ones by a layout). */
+  GraphView.prototype.showScenario = function (scenario) {
+    const g = scenario.graph;
+    const cy = this.cy;
+    const els = [];
+    let missing = false;
+    g.vertices.forEach(function (v, i) {
+      const hasPos = typeof v.x === "number" && typeof v.y === "number";
+      if (!hasPos) missing = true;
+      const cls = (v.id === g.s ? "role-s" : v.id === g.t ? "role-t" : "") + (String(v.id).length > 3 ? " wide-label" : "");
+      els.push({ group: "nodes", data: { id: v.id, label: vertexLabel(v.id, g.s, g.t) },
+        position: hasPos ? { x: v.x, y: v.y } : { x: 80 * i, y: 0 }, classes: cls });
+    });
+    g.edges.forEach(function (e) {
+      els.push({ group: "edges", data: { id: e.id, source: e.u, target: e.v, label: edgeLabel(e), color: edgeColor(String(e.when)), base: edgeLabel(e) } });
+    });
+    const selected = cy.$(":selected").map(function (x) { return x.id(); });
+    cy.batch(function () {
+      cy.elements().remove();
+      cy.add(els.filter(function (x) { return x.group === "nodes"; }));
+      // Edges whose ends are unknown are left out of the drawing; validation names them.
+      cy.add(els.filter(function (x) { return x.group === "edges" && cy.getElementById(x.data.source).length && cy.getElementById(x.data.target).length; }));
+      selected.forEach(function (id) { const el = cy.getElementById(id); if (el.length) el.select(); });
+    });
+    this.focus = null;
+    return missing;
+  };
+
+  /** Runs an automatic layout and returns the new positions {id: {x, y}}. */
+  GraphView.prototype.arrange = function () {
+    const cy = this.cy;
+    cy.layout({ name: "breadthfirst", directed: false, spacingFactor: 1.2, animate: false,
+      roots: cy.nodes(".role-s").length ? cy.nodes(".role-s") : undefined }).run();
+    const out = {};
+    cy.nodes().forEach(function (n) { const p = n.position(); out[n.id()] = { x: Math.round(p.x), y: Math.round(p.y) }; });
+    cy.fit(undefined, 30);
+    return out;
+  };
+
+  GraphView.prototype.fit = function () {
+    this.cy.fit(undefined, 30 * (this.scale || 1));
+    if (this.cy.zoom() > 1.6) { this.cy.zoom(1.6); this.cy.center(); }
+  };
+
+  /** Clears focus styling: every edge solid with its condition label. */
+  GraphView.prototype.clearFocus = function () {
+    const cy = this.cy;
+    cy.batch(function () {
+      cy.edges().removeClass("absent flow fwd back").forEach(function (e) { e.data("label", e.data("base")); });
+      cy.nodes().removeClass("ramp");
+    });
+    this.restoreVertexLabels();
+  };
+
+  GraphView.prototype.restoreVertexLabels = function () {
+    const s = this.cy.nodes(".role-s").id();
+    const t = this.cy.nodes(".role-t").id();
+    this.cy.nodes().forEach(function (n) { n.data("label", vertexLabel(n.id(), s, t)); });
+  };
+
+  /**
+   * Shows one input's witness. detail: the engine's answer for that input; view: "flow" or
+   * "potential". Positive input + flow: width ∝ |current|, arrow along the current, current in
+   * the label, potentials in vertex labels. Otherwise: potentials as a colour ramp; on a negative
+   * input the absent edges carry their energy.
+   */
+  GraphView.prototype.showFocus = function (detail, view) {
+    const cy = this.cy;
+    const k = this.scale || 1;
+    this.restoreVertexLabels();
+    const pot = detail.potentials || {};
+    let pmin = Infinity, pmax = -Infinity;
+    Object.keys(pot).forEach(function (id) { const p = pot[id]; if (typeof p === "number" && isFinite(p)) { pmin = Math.min(pmin, p); pmax = Math.max(pmax, p); } });
+    const span = pmax > pmin ? pmax - pmin : 1;
+    const positive = !!detail.connected;
+    const useRamp = !positive || view === "potential";
+    const byId = {};
+    (detail.edges || []).forEach(function (e) { byId[e.id] = e; });
+    cy.batch(function () {
+      cy.edges().forEach(function (el) {
+        const d = byId[el.id()];
+        el.removeClass("absent flow fwd back");
+        if (!d) { el.data("label", el.data("base")); return; }
+        if (!d.present) {
+          el.addClass("absent");
+          const energy = typeof d.energy === "number" && !positive ? " · E=" + F.num(d.energy) : "";
+          el.data("label", el.data("base") + energy);
+          return;
+        }
+        if (positive && view !== "potential") {
+          const c = typeof d.current === "number" ? d.current : 0;
+          el.addClass("flow");
+          el.data("flowWidth", (1.5 + 10 * Math.min(1, Math.abs(c))) * Math.sqrt(k));
+          if (c > 1e-12) el.addClass("fwd"); else if (c < -1e-12) el.addClass("back");
+          el.data("label", el.data("base") + " · i=" + F.num(Math.abs(c)));
+        } else {
+          el.data("label", el.data("base"));
+        }
+      });
+      cy.nodes().forEach(function (n) {
+        const p = pot[n.id()];
+        const base = n.data("label");
+        if (typeof p === "number") n.data("label", base + "\n" + "φ=" + F.num(p));
+        if (useRamp && typeof p === "number") {
+          const t = (p - pmin) / span;
+          n.addClass("ramp");
+          n.data("fill", F.ramp(t));
+          n.data("ink", F.rampText(t));
+        } else {
+          n.removeClass("ramp");
+        }
+      });
+    });
+    return { useRamp: useRamp, pmin: pmin, pmax: pmax, positive: positive };
+  };
+
+  GraphView.prototype.png = function () {
+    return this.cy.png({ full: true, scale: 2, bg: "#ffffff" });
+  };
+
+  self.SwGraphView = GraphView;
+})();

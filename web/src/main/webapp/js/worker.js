@@ -1,0 +1,240 @@
+/*
+ * The engine bridge. All computation runs in one Web Worker built from a Blob URL (the only way
+ * a worker starts from file://). The worker receives the TeaVM code as text: the JavaScript
+ * engine (always) and the WebAssembly-GC runtime plus module bytes (when present). It prefers
+ * WebAssembly-GC and falls back to JavaScript when the browser cannot run it.
+ *
+ * Messages, page -> worker:
+ *   {type:"init", engine:"auto"|"wasm"|"js"}
+ *   {type:"call", id, fn, args}                   quick calls: validate, detail, encodeShare, decodeShare
+ *   {type:"analyze", id, scenario, withInputs}    enumeration in steps, with progress
+ *   {type:"cancel", id}
+ * worker -> page:
+ *   {type:"ready", engine, note, loadMs} | {type:"fatal", message}
+ *   {type:"reply", id, text}
+ *   {type:"progress", id, processed, total}
+ *   {type:"analysis", id, text, inputs, ms, total} | {type:"analysis-error", id, text} | {type:"cancelled", id}
+ */
+(function () {
+  "use strict";
+
+  const EXPORTED = ["validate", "analyze", "startAnalysis", "stepAnalysis", "finishAnalysis",
+    "cancelAnalysis", "detail", "encodeShare", "decodeShare"];
+
+  /* Runs inside the worker. Written as a function so that its text can go into the Blob. */
+  function workerMain() {
+    let engine = null;
+    let engineName = "";
+    let running = null;          // {id, job, cancelled}
+    const queue = [];
+
+    function post(msg, transfer) { self.postMessage(msg, transfer || []); }
+
+    function errorText(code, message) {
+      return JSON.stringify({ ok: false, error: { code: code, message: message, path: "$" } });
+    }
+
+    async function init(preferred) {
+      const t0 = performance.now();
+      let note = "";
+      if (preferred !== "js" && self.__swWasmBase64 && typeof WebAssembly === "object") {
+        try {
+          const bin = atob(self.__swWasmBase64);
+          const bytes = new Uint8Array(bin.length);
+          for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
+          const loaded = await self.TeaVM.wasmGC.load(bytes);
+          const ex = loaded.exports;
+          const probe = ex.validate("{}");
+          if (typeof probe !== "string") throw new Error("the module answered " + typeof probe);
+          engine = ex;
+          engineName = "wasm";
+        } catch (e) {
+          note = "WebAssembly-GC is not available here (" + (e && e.message ? e.message : e) + "); using JavaScript.";
+        }
+      } else if (preferred !== "js") {
+        note = "This browser has no WebAssembly; using JavaScript.";
+      }
+      if (!engine) {
+        engine = self.__swJsEngine;
+        engineName = "js";
+      }
+      post({ type: "ready", engine: engineName, note: note, loadMs: performance.now() - t0 });
+      pump();
+    }
+
+    function handle(msg) {
+      if (msg.type === "call") {
+        let text;
+        try {
+          text = engine[msg.fn].apply(null, msg.args);
+        } catch (e) {
+          text = errorText("engine-failure", "The engine failed in " + msg.fn + ": " + (e && e.message ? e.message : e));
+        }
+        post({ type: "reply", id: msg.id, text: text });
+      } else if (msg.type === "analyze") {
+        if (running) { cancelRunning(); }
+        startJob(msg);
+      } else if (msg.type === "cancel") {
+        if (running && running.id === msg.id) { cancelRunning(); post({ type: "cancelled", id: msg.id }); }
+      }
+    }
+
+    function cancelRunning() {
+      try { engine.cancelAnalysis(running.job); } catch (e) { /* nothing to release */ }
+      running.cancelled = true;
+      running = null;
+    }
+
+    function startJob(msg) {
+      const t0 = performance.now();
+      let started;
+      try {
+        started = JSON.parse(engine.startAnalysis(msg.scenario));
+      } catch (e) {
+        post({ type: "analysis-error", id: msg.id, text: errorText("engine-failure", String(e && e.message ? e.message : e)) });
+        return;
+      }
+      if (!started.ok) { post({ type: "analysis-error", id: msg.id, text: JSON.stringify(started) }); return; }
+      const job = { id: msg.id, job: started.job, cancelled: false, t0: t0, chunk: 1024,
+        withInputs: msg.withInputs !== false, total: started.domainSize };
+      running = job;
+      // Small domains are finished in one call; large ones are stepped with progress reports.
+      if (job.total <= 4096) { finish(job); return; }
+      step(job);
+    }
+
+    function step(job) {
+      if (job.cancelled || running !== job) return;
+      let status;
+      try {
+        const s0 = performance.now();
+        status = JSON.parse(engine.stepAnalysis(job.job, job.chunk));
+        const took = performance.now() - s0;
+        // Aim at about 40 ms per step so cancel and quick calls are answered promptly.
+        if (took < 20 && job.chunk < (1 << 20)) job.chunk *= 2;
+        else if (took > 80 && job.chunk > 64) job.chunk = Math.max(64, Math.floor(job.chunk / 2));
+      } catch (e) {
+        running = null;
+        post({ type: "analysis-error", id: job.id, text: errorText("engine-failure", String(e && e.message ? e.message : e)) });
+        return;
+      }
+      if (!status.ok) { running = null; post({ type: "analysis-error", id: job.id, text: JSON.stringify(status) }); return; }
+      post({ type: "progress", id: job.id, processed: status.processed, total: status.total });
+      if (!status.done) { setTimeout(function () { pump(); step(job); }, 0); return; }
+      finish(job);
+    }
+
+    function finish(job) {
+      let text;
+      try {
+        text = engine.finishAnalysis(job.job, job.withInputs);
+      } catch (e) {
+        running = null;
+        post({ type: "analysis-error", id: job.id, text: errorText("engine-failure", String(e && e.message ? e.message : e)) });
+        return;
+      }
+      running = null;
+      const ms = performance.now() - job.t0;
+      // The input list travels as typed arrays (transferred, not copied); the rest as JSON text.
+      let parsed;
+      try { parsed = JSON.parse(text); } catch (e) { parsed = null; }
+      if (!parsed || !parsed.ok) { post({ type: "analysis-error", id: job.id, text: text }); return; }
+      const rows = (parsed.result && parsed.result.inputs) || [];
+      const n = rows.length;
+      const codes = new Int32Array(n);
+      const values = new Float64Array(n);
+      const flags = new Uint8Array(n);   // bit0 connected, bit1 f known, bit2 f = 1
+      for (let i = 0; i < n; i++) {
+        const r = rows[i];
+        codes[i] = parseInt(r.x, 2) || 0;
+        values[i] = r.value === null || r.value === undefined ? NaN : Number(r.value);
+        flags[i] = (r.connected ? 1 : 0) | (r.f === null || r.f === undefined ? 0 : 2) | (r.f === 1 || r.f === true ? 4 : 0);
+      }
+      if (parsed.result) delete parsed.result.inputs;
+      post({ type: "analysis", id: job.id, text: JSON.stringify(parsed), ms: ms, total: job.total,
+        inputs: { codes: codes, values: values, flags: flags } }, [codes.buffer, values.buffer, flags.buffer]);
+    }
+
+    function pump() {
+      while (engine && queue.length) {
+        handle(queue.shift());
+      }
+    }
+
+    self.onmessage = function (ev) {
+      const msg = ev.data;
+      if (msg.type === "init") { init(msg.engine); return; }
+      queue.push(msg);
+      if (engine) pump();
+    };
+  }
+
+  let workerSource = null;
+  function buildWorkerSource() {
+    if (workerSource) return workerSource;
+    const S = self.SpanwrightSources || {};
+    if (!S.js) throw new Error("The page is incomplete: the engine script engine/engine-js.js did not load.");
+    const parts = [];
+    parts.push("self.__swJsEngine = (function(){\n", S.js, "\n;return {");
+    parts.push(EXPORTED.map(function (n) { return n + ":" + n; }).join(","));
+    parts.push("};})();\n");
+    if (S.wasmRuntime && S.wasmBase64) {
+      parts.push(S.wasmRuntime, "\n;self.__swWasmBase64 = \"", S.wasmBase64, "\";\n");
+    }
+    parts.push("(", workerMain.toString(), ")();\n");
+    workerSource = URL.createObjectURL(new Blob(parts, { type: "text/javascript" }));
+    return workerSource;
+  }
+
+  /**
+   * The page's handle on the engine: promise-returning calls and analysis jobs with progress.
+   */
+  function EngineBridge(preferred, onReady, onFatal) {
+    this.nextId = 1;
+    this.pending = new Map();
+    this.jobs = new Map();
+    this.engine = "";
+    this.ready = false;
+    const worker = new Worker(buildWorkerSource());
+    this.worker = worker;
+    const self_ = this;
+    worker.onerror = function (e) {
+      onFatal("The engine could not start: " + (e.message || "worker error"));
+    };
+    worker.onmessage = function (ev) {
+      const m = ev.data;
+      if (m.type === "ready") { self_.ready = true; self_.engine = m.engine; onReady(m); return; }
+      if (m.type === "reply") { const p = self_.pending.get(m.id); self_.pending.delete(m.id); if (p) p(m.text); return; }
+      const job = self_.jobs.get(m.id);
+      if (!job) return;
+      if (m.type === "progress") job.onProgress(m.processed, m.total);
+      else { self_.jobs.delete(m.id); job.onDone(m); }
+    };
+    worker.postMessage({ type: "init", engine: preferred });
+  }
+  EngineBridge.prototype.call = function (fn) {
+    const args = Array.prototype.slice.call(arguments, 1);
+    const id = this.nextId++;
+    const self_ = this;
+    return new Promise(function (resolve) {
+      self_.pending.set(id, function (text) {
+        let v;
+        try { v = JSON.parse(text); } catch (e) { v = { ok: false, error: { code: "bad-answer", message: "The engine's answer was not JSON.", path: "$" } }; }
+        resolve(v);
+      });
+      self_.worker.postMessage({ type: "call", id: id, fn: fn, args: args });
+    });
+  };
+  EngineBridge.prototype.analyze = function (scenarioText, onProgress, onDone) {
+    const id = this.nextId++;
+    this.jobs.set(id, { onProgress: onProgress, onDone: onDone });
+    this.worker.postMessage({ type: "analyze", id: id, scenario: scenarioText, withInputs: true });
+    return id;
+  };
+  EngineBridge.prototype.cancel = function (id) {
+    this.worker.postMessage({ type: "cancel", id: id });
+  };
+  EngineBridge.prototype.terminate = function () { this.worker.terminate(); };
+
+  self.SpanwrightEngineBridge = EngineBridge;
+})();
