@@ -91,9 +91,11 @@ public final class ScenarioReader {
         }
         int n = variables.size();
 
-        // promise (needed to decide the variable limit)
-        Promise promise = readPromise(root.get("promise"), variables);
-        int limit = promise.kind() == Promise.Kind.INPUTS ? MAX_LISTED_VARIABLES : MAX_ENUMERATED_VARIABLES;
+        // the variable limit depends on the promise's kind; check it before reading the promise, so
+        // that well-formed input strings are not blamed for too many variables
+        Object po = root.get("promise");
+        boolean listed = po instanceof Map && ((Map<?, ?>) po).containsKey("inputs");
+        int limit = listed ? MAX_LISTED_VARIABLES : MAX_ENUMERATED_VARIABLES;
         if (n > limit) {
             throw new ScenarioException("too-many-variables", "$.variables", n
                     + " variables is more than the enumeration limit of " + limit
@@ -101,6 +103,7 @@ public final class ScenarioReader {
                             ? " (2^" + limit + " inputs); list the inputs of interest in \"promise\": {\"inputs\": [...]} to go further"
                             : ""));
         }
+        Promise promise = readPromise(po, variables);
 
         // function
         String functionText = null;
@@ -185,7 +188,8 @@ public final class ScenarioReader {
                 w = (Double) wt;
                 if (!(w > 0) || Double.isInfinite(w)) {
                     throw new ScenarioException("weight", p + ".weight", "weight must be a finite number > 0, got "
-                            + Json.write(wt));
+                            + (Double.isInfinite(w) ? (w > 0 ? "" : "-") + "infinity (a number too large)"
+                                    : Json.write(wt)));
                 }
             } else if (wt == Json.NULL) {
                 throw new ScenarioException("weight", p + ".weight", "weight must be a finite number > 0, got null");
