@@ -113,7 +113,8 @@ public final class AnalysisRun {
      * @return true when the whole domain has been processed
      */
     public boolean step(long maxInputs) {
-        long end = Math.min(domain.size(), cursor + Math.max(0, maxInputs));
+        // written so that cursor + maxInputs cannot overflow (finish calls step(Long.MAX_VALUE))
+        long end = cursor + Math.min(Math.max(0, maxInputs), domain.size() - cursor);
         for (long k = cursor; k < end; k++) {
             long x = domain.get(k);
             for (int e = 0; e < edgeCount; e++) {
