@@ -255,6 +255,7 @@
     inp.value = String(current === undefined || current === null ? 1 : current);
     inp.addEventListener("change", function () {
       const w = Number(inp.value);
+      if (inp.value.trim() === "") { return; }
       if (!(w > 0) || !isFinite(w)) {
         notify("A weight is a resistance: a finite number greater than 0. '" + inp.value + "' was not applied.", "error");
         inp.value = String(current === undefined ? 1 : current);
@@ -860,8 +861,12 @@
     opts = opts || {};
     let obj;
     try { obj = JSON.parse(scenarioText); } catch (e) {
-      notify("Could not open " + sourceName + ": " + F.jsonProblem(scenarioText, e) + ". Your current work is unchanged.", "error");
-      return Promise.resolve(false);
+      // The engine's reader names line and column; the browser's message may not.
+      return state.bridge.call("validate", scenarioText).then(function (v) {
+        const why = !v.ok && v.error && v.error.message ? v.error.message : F.jsonProblem(scenarioText, e);
+        notify("Could not open " + sourceName + ": " + why + ". Your current work is unchanged.", "error");
+        return false;
+      });
     }
     if (!obj || typeof obj !== "object" || Array.isArray(obj)) {
       notify("Could not open " + sourceName + ": it is not a scenario object. Your current work is unchanged.", "error");
@@ -983,7 +988,7 @@
 
   function setPresenting(on) {
     document.body.dataset.mode = on ? "present" : "edit";
-    view.setScale(on ? 1.8 : 1);
+    view.setScale(on ? 1.5 : 1);
     $("histogram").hidden = on;
     setTimeout(function () { view.cy.resize(); view.fit(); reapplyFocus(); }, 50);
   }

@@ -96,7 +96,7 @@
       }
       if (!started.ok) { post({ type: "analysis-error", id: msg.id, text: JSON.stringify(started) }); return; }
       const job = { id: msg.id, job: started.job, cancelled: false, t0: t0, chunk: 1024,
-        withInputs: msg.withInputs !== false, total: started.domainSize };
+        withInputs: msg.withInputs !== false, total: started.domainSize, scenario: msg.scenario, stepped: false, retried: false };
       running = job;
       // Small domains are finished in one call; large ones are stepped with progress reports.
       if (job.total <= 4096) { finish(job); return; }
@@ -109,6 +109,7 @@
       try {
         const s0 = performance.now();
         status = JSON.parse(engine.stepAnalysis(job.job, job.chunk));
+        job.stepped = true;
         const took = performance.now() - s0;
         // Aim at about 40 ms per step so cancel and quick calls are answered promptly.
         if (took < 20 && job.chunk < (1 << 20)) job.chunk *= 2;
@@ -138,6 +139,12 @@
       // The input list travels as typed arrays (transferred, not copied); the rest as JSON text.
       let parsed;
       try { parsed = JSON.parse(text); } catch (e) { parsed = null; }
+      if ((!parsed || !parsed.ok) && job.stepped && !job.retried) {
+        // Defensive: if finishing a stepped job fails inside the engine, analyse the same text
+        // again in one call (no progress, same numbers) rather than show no result at all.
+        const again = JSON.parse(engine.startAnalysis(job.scenario));
+        if (again.ok) { job.job = again.job; job.retried = true; finish(job); return; }
+      }
       if (!parsed || !parsed.ok) { post({ type: "analysis-error", id: job.id, text: text }); return; }
       const rows = (parsed.result && parsed.result.inputs) || [];
       const n = rows.length;

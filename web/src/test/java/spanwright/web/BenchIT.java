@@ -1,0 +1,116 @@
+package spanwright.web;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.Paths;
+import java.time.Duration;
+import org.junit.jupiter.api.Test;
+
+/**
+ * In-browser benchmark (prints, never asserts a time): first render of the default scenario, and
+ * inputs per second for a 2^16-input scenario in the JavaScript and WebAssembly-GC engines. Also
+ * checks that a 2^18-input analysis shows progress and can be cancelled. Figures are appended to
+ * target/bench-browser.txt.
+ */
+class BenchIT {
+    private static final Duration WAIT = Duration.ofSeconds(180);
+
+    /** A ladder of our own invention: n rungs joined in series, two literal edges per rung, and
+     *  negated shortcuts that skip a rung. 2·rungs variables. */
+    static String ladder(int rungs) {
+        StringBuilder vars = new StringBuilder();
+        StringBuilder vertices = new StringBuilder("{\"id\":\"s\",\"x\":0,\"y\":0}");
+        StringBuilder edges = new StringBuilder();
+        for (int i = 0; i < 2 * rungs; i++) {
+            vars.append(i == 0 ? "" : ",").append("\"x").append(i).append('"');
+        }
+        for (int i = 1; i < rungs; i++) {
+            vertices.append(",{\"id\":\"m").append(i).append("\",\"x\":").append(90 * i).append(",\"y\":").append(i % 2 * 60).append('}');
+        }
+        vertices.append(",{\"id\":\"t\",\"x\":").append(90 * rungs).append(",\"y\":0}");
+        int e = 0;
+        for (int i = 0; i < rungs; i++) {
+            String u = i == 0 ? "s" : "m" + i;
+            String v = i == rungs - 1 ? "t" : "m" + (i + 1);
+            edges.append(e == 0 ? "" : ",").append(edge(++e, u, v, "x" + (2 * i), 1));
+            edges.append(',').append(edge(++e, u, v, "x" + (2 * i + 1), 2));
+            if (i + 2 <= rungs) {
+                String w = i + 2 == rungs ? "t" : "m" + (i + 2);
+                edges.append(',').append(edge(++e, u, w, "!x" + (2 * i + 1), 3));
+            }
+        }
+        return "{\"format\":\"spanwright-scenario\",\"version\":1,\"title\":\"Bench ladder " + rungs + " rungs\","
+                + "\"variables\":[" + vars + "],\"promise\":null,\"graph\":{\"s\":\"s\",\"t\":\"t\","
+                + "\"vertices\":[" + vertices + "],\"edges\":[" + edges + "]}}";
+    }
+
+    private static String edge(int id, String u, String v, String when, double w) {
+        return "{\"id\":\"e" + id + "\",\"u\":\"" + u + "\",\"v\":\"" + v + "\",\"when\":\"" + when + "\",\"weight\":" + w + "}";
+    }
+
+    private static void record(String line) throws IOException {
+        System.out.println("[bench] " + line);
+        Path out = Paths.get("target/bench-browser.txt");
+        Files.writeString(out, line + "\n", StandardCharsets.UTF_8,
+                java.nio.file.StandardOpenOption.CREATE, java.nio.file.StandardOpenOption.APPEND);
+    }
+
+    @Test
+    void firstRenderAndThroughput() throws IOException {
+        Path file = Files.createTempFile("ladder16-", ".json");
+        Files.writeString(file, ladder(8), StandardCharsets.UTF_8);
+        try (PageDriver page = new PageDriver(1280, 900)) {
+            for (String engine : new String[] {"js", "wasm"}) {
+                page.driver.get(PageDriver.pageUrl(null));
+                page.js("localStorage.clear();");
+                page.driver.get("about:blank");
+                page.openFresh("?engine=" + engine);
+                assertEquals(engine, page.data("engine-badge", "engine"));
+                record("engine=" + engine + " first render of the default scenario: "
+                        + page.js("return document.body.dataset.firstRenderMs;") + " ms after navigation start");
+                int serial = page.serial();
+                page.$("open-file").sendKeys(file.toString());
+                page.waitForAnalysis(serial, WAIT);
+                assertEquals("ready", page.js("return document.body.dataset.analysis;"), page.$("error-box").getText());
+                String total = page.$("counts").getText();
+                assertTrue(total.startsWith("65,536 inputs"), total);
+                double ms = Double.parseDouble(page.data("timing", "ms"));
+                double rate = Double.parseDouble(page.data("timing", "rate"));
+                record("engine=" + engine + " 2^16 inputs (ladder of 8 rungs: " + ladderSize() + "): "
+                        + Math.round(ms) + " ms in the worker, " + Math.round(rate) + " inputs/s");
+            }
+        } finally {
+            Files.deleteIfExists(file);
+        }
+    }
+
+    private static String ladderSize() {
+        return "9 vertices, 23 edges, 16 variables";
+    }
+
+    @Test
+    void aLargeAnalysisShowsProgressAndCanBeCancelled() throws IOException {
+        Path file = Files.createTempFile("ladder18-", ".json");
+        Files.writeString(file, ladder(9), StandardCharsets.UTF_8);
+        try (PageDriver page = new PageDriver(1280, 900)) {
+            page.openFresh("?engine=js");
+            String before = page.$("sum-bound").getText();
+            page.$("open-file").sendKeys(file.toString());
+            page.waitFor("progress bar shown", WAIT, () -> page.$("progress-row").isDisplayed());
+            // The page stays responsive while the worker runs: a script round trip is answered.
+            long t0 = System.nanoTime();
+            page.js("return 1;");
+            record("page script round trip during a 2^18 analysis: " + (System.nanoTime() - t0) / 1_000_000 + " ms");
+            page.$("cancel").click();
+            page.waitFor("cancelled", WAIT, () -> "cancelled".equals(page.js("return document.body.dataset.analysis;")));
+            assertEquals(before, page.$("sum-bound").getText(), "numbers of the last finished analysis are kept");
+        } finally {
+            Files.deleteIfExists(file);
+        }
+    }
+}

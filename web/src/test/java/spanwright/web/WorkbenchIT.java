@@ -1,0 +1,295 @@
+package spanwright.web;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertNotNull;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.Paths;
+import java.time.Duration;
+import java.util.Map;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Test;
+import org.openqa.selenium.By;
+import org.openqa.selenium.Keys;
+import org.openqa.selenium.WebElement;
+import org.openqa.selenium.support.ui.Select;
+import spanwright.io.Json;
+import spanwright.io.JsonFacade;
+
+/**
+ * The built page in real headless Chromium, opened from file://. Expected numbers come from the
+ * JVM: {@link JsonFacade#analyze} on the same scenario text — the same façade the command-line
+ * tool's {@code analyze --json} prints — so page and CLI are checked to agree ("independent
+ * computation": the same Java code on the JVM versus its TeaVM translations in the browser).
+ */
+class WorkbenchIT {
+    private static final Duration WAIT = Duration.ofSeconds(60);
+    /** JVM doubles versus TeaVM JavaScript/wasm doubles: same IEEE operations, printed and re-read;
+     *  1e-12 relative allows only for last-digit printing differences (common practice, no source). */
+    private static final double TOL = 1e-12;
+
+    private static PageDriver page;
+
+    @BeforeAll
+    static void start() throws IOException {
+        page = new PageDriver(1280, 900);
+    }
+
+    @AfterAll
+    static void stop() {
+        if (page != null) {
+            page.close();
+        }
+    }
+
+    @BeforeEach
+    void clean() {
+        page.driver.get(PageDriver.pageUrl(null));
+        page.js("localStorage.clear();");
+    }
+
+    static String scenarioFile(String name) throws IOException {
+        Path p = Paths.get(System.getProperty("spanwright.scenarios", "../scenarios")).resolve(name);
+        return Files.readString(p, StandardCharsets.UTF_8);
+    }
+
+    @SuppressWarnings("unchecked")
+    static Map<String, Object> jvmResult(String scenarioText) {
+        Map<String, Object> answer = (Map<String, Object>) Json.parse(JsonFacade.analyze(scenarioText, false));
+        assertEquals(Boolean.TRUE, answer.get("ok"), () -> "JVM analysis failed: " + answer);
+        return (Map<String, Object>) answer.get("result");
+    }
+
+    @SuppressWarnings("unchecked")
+    static double side(Map<String, Object> result, String side, String key) {
+        Map<String, Object> m = (Map<String, Object>) result.get(side);
+        return ((Number) m.get(key)).doubleValue();
+    }
+
+    @SuppressWarnings("unchecked")
+    static String worst(Map<String, Object> result, String side) {
+        return (String) ((Map<String, Object>) result.get(side)).get("worst");
+    }
+
+    static void assertClose(double expected, double actual, String what) {
+        assertEquals(expected, actual, TOL * Math.max(1, Math.abs(expected)), what);
+    }
+
+    private void assertPageMatches(Map<String, Object> expected, String where) {
+        assertClose(side(expected, "positive", "maxResistance"), page.value("sum-wplus"), "W+ " + where);
+        assertClose(side(expected, "negative", "maxCapacitance"), page.value("sum-wminus"), "W- " + where);
+        assertClose(((Number) expected.get("complexity")).doubleValue(), page.value("sum-bound"), "bound " + where);
+    }
+
+    @Test
+    void defaultScenarioMatchesTheJvmInBothEngines() throws IOException {
+        Map<String, Object> expected = jvmResult(scenarioFile("default.json"));
+        for (String engine : new String[] {"js", "wasm"}) {
+            page.js("localStorage.clear();");
+            page.openFresh("?engine=" + engine);
+            assertEquals(engine, page.data("engine-badge", "engine"), "engine running");
+            assertEquals("gallery", page.js("return document.body.dataset.loadedFrom;"));
+            assertPageMatches(expected, "(" + engine + " engine)");
+            assertTrue(page.$("verdict").getText().contains("decides f"), page.$("verdict").getText());
+        }
+    }
+
+    @Test
+    void singleFileGivesTheSameNumbers() throws IOException {
+        Map<String, Object> expected = jvmResult(scenarioFile("default.json"));
+        Path single = Paths.get(System.getProperty("spanwright.singleFile", "target/spanwright.html")).toAbsolutePath();
+        page.driver.get(single.toUri().toString());
+        page.waitForAnalysis(0, WAIT);
+        assertPageMatches(expected, "(single file)");
+    }
+
+    @Test
+    void worstButtonsFocusTheWorstInputs() throws IOException {
+        Map<String, Object> expected = jvmResult(scenarioFile("default.json"));
+        page.openFresh(null);
+        page.$("worst-pos").click();
+        page.waitFor("focus on worst positive", WAIT, () -> worst(expected, "positive").equals(page.js("return window.Spanwright.focus();")));
+        assertEquals(worst(expected, "positive"), page.$("focus-x").getText());
+        assertClose(side(expected, "positive", "maxResistance"), page.value("focus-value"), "R of the focused input");
+        page.waitFor("focused row drawn", WAIT, () -> worst(expected, "positive").equals(page.js("return document.body.dataset.focusDrawn;")));
+        assertFalse(page.driver.findElements(By.cssSelector(".row.focused")).isEmpty(), "the focused row is visible");
+
+        page.$("worst-neg").click();
+        page.waitFor("focus on worst negative", WAIT, () -> worst(expected, "negative").equals(page.js("return window.Spanwright.focus();")));
+        assertClose(side(expected, "negative", "maxCapacitance"), page.value("focus-value"), "C of the focused input");
+
+        // Arrow keys step through the list.
+        String before = (String) page.js("return window.Spanwright.focus();");
+        page.driver.findElement(By.tagName("body")).sendKeys(Keys.ARROW_DOWN);
+        page.waitFor("arrow key moves focus", WAIT, () -> !before.equals(page.js("return window.Spanwright.focus();")));
+    }
+
+    @Test
+    void anEditChangesTheNumbersAndUndoRestoresThem() throws IOException {
+        Map<String, Object> original = jvmResult(scenarioFile("default.json"));
+        page.openFresh(null);
+        assertPageMatches(original, "before the edit");
+        page.js("document.querySelectorAll('.editors details').forEach(function(d){d.open=true;});");
+        WebElement weight = page.driver.findElements(By.cssSelector("#edge-table .edge-weight")).get(0);
+        int serial = page.serial();
+        weight.sendKeys(Keys.chord(Keys.CONTROL, "a"), "3", Keys.TAB);
+        page.waitForAnalysis(serial, WAIT);
+        String edited = (String) page.js("return window.Spanwright.scenarioText();");
+        assertTrue(edited.contains("\"weight\":3"), edited);
+        Map<String, Object> expectedEdited = jvmResult(edited);
+        assertPageMatches(expectedEdited, "after the edit");
+        assertNotEquals(side(original, "positive", "maxResistance") * side(original, "negative", "maxCapacitance"),
+                page.value("sum-wplus") * page.value("sum-wminus"), "the edit changed W+·W-");
+
+        serial = page.serial();
+        page.driver.findElement(By.tagName("body")).click();
+        page.driver.findElement(By.tagName("body")).sendKeys(Keys.chord(Keys.CONTROL, "z"));
+        page.waitForAnalysis(serial, WAIT);
+        assertPageMatches(original, "after undo");
+
+        serial = page.serial();
+        page.driver.findElement(By.tagName("body")).sendKeys(Keys.chord(Keys.CONTROL, Keys.SHIFT, "z"));
+        page.waitForAnalysis(serial, WAIT);
+        assertPageMatches(expectedEdited, "after redo");
+    }
+
+    @Test
+    void aShareLinkRoundTrips() {
+        page.openFresh(null);
+        WebElement title = page.$("title");
+        title.clear();
+        title.sendKeys("Shared by link \u2014 \u00e9t\u00e9", Keys.TAB);
+        page.waitFor("title committed", WAIT, () -> String.valueOf(page.js("return window.Spanwright.scenarioText();")).contains("Shared by link"));
+        String shared = (String) page.js("return window.Spanwright.scenarioText();");
+        page.$("copy-link").click();
+        page.waitFor("link shown", WAIT, () -> !page.$("share-link").getAttribute("value").isEmpty());
+        String link = page.$("share-link").getAttribute("value");
+        assertTrue(link.startsWith("file:///") && link.contains("#s1."), link);
+
+        // Replace the work with another gallery scenario, then follow the link.
+        int serial = page.serial();
+        new Select(page.$("gallery")).selectByIndex(2);
+        page.waitForAnalysis(serial, WAIT);
+        assertNotEquals(shared, page.js("return window.Spanwright.scenarioText();"));
+        serial = page.serial();
+        page.driver.get(link);
+        page.waitFor("link opened", WAIT, () -> "opened".equals(page.js("return document.body.dataset.linkStatus;")));
+        assertEquals(shared, page.js("return window.Spanwright.scenarioText();"));
+        assertEquals("Shared by link \u2014 \u00e9t\u00e9", page.$("title").getAttribute("value"));
+        page.waitForAnalysis(serial, WAIT);
+
+        // A fresh tab (full page load) opens the same link too.
+        page.js("localStorage.clear();");
+        page.driver.get("about:blank");
+        page.driver.get(link);
+        page.waitFor("link opened on load", WAIT, () -> "opened".equals(page.js("return document.body.dataset.linkStatus;")));
+        assertEquals(shared, page.js("return window.Spanwright.scenarioText();"));
+    }
+
+    @Test
+    void aBrokenLinkShowsAMessageAndKeepsTheWork() {
+        page.openFresh(null);
+        WebElement title = page.$("title");
+        title.clear();
+        title.sendKeys("My unsaved work", Keys.TAB);
+        page.waitFor("title committed", WAIT, () -> String.valueOf(page.js("return window.Spanwright.scenarioText();")).contains("My unsaved work"));
+        String work = (String) page.js("return window.Spanwright.scenarioText();");
+        String base = PageDriver.pageUrl(null);
+        for (String fragment : new String[] {"#s1.AAAAthis-is-not-a-real-code", "#hello-world", "#s9.QUJD"}) {
+            page.js("document.body.dataset.linkStatus = '';");
+            page.driver.get(base + fragment);
+            page.waitFor("broken link reported for " + fragment, WAIT,
+                    () -> "broken".equals(page.js("return document.body.dataset.linkStatus;")));
+            assertTrue(page.$("notice").isDisplayed());
+            String message = page.$("notice-text").getText();
+            assertTrue(message.contains("does not hold a scenario") && message.contains("unchanged"), message);
+            assertEquals(work, page.js("return window.Spanwright.scenarioText();"), "work kept after " + fragment);
+            assertEquals("My unsaved work", page.$("title").getAttribute("value"));
+        }
+        // The work also survives a reload (autosave).
+        page.driver.navigate().refresh();
+        page.waitForAnalysis(0, WAIT);
+        assertEquals("autosave", page.js("return document.body.dataset.loadedFrom;"));
+        assertEquals(work, page.js("return window.Spanwright.scenarioText();"));
+    }
+
+    @Test
+    void hostileStringsStayInert() throws IOException {
+        String img = "<img src=x onerror=\\\"window.__pwned=1\\\">";
+        String script = "\\\"><script>window.__pwned=2</script>";
+        String scenario = "{\"format\":\"spanwright-scenario\",\"version\":1,"
+                + "\"title\":\"" + img + "\",\"notes\":\"" + script + "\","
+                + "\"variables\":[\"a\",\"b\"],\"function\":\"a & b\",\"promise\":null,"
+                + "\"graph\":{\"s\":\"" + img + "\",\"t\":\"" + script + "\","
+                + "\"vertices\":[{\"id\":\"" + img + "\",\"x\":0,\"y\":0},{\"id\":\"m\",\"x\":100,\"y\":0},"
+                + "{\"id\":\"" + script + "\",\"x\":200,\"y\":0}],"
+                + "\"edges\":[{\"id\":\"" + img + "\",\"u\":\"" + img + "\",\"v\":\"m\",\"when\":\"a\"},"
+                + "{\"id\":\"e2\",\"u\":\"m\",\"v\":\"" + script + "\",\"when\":\"b\"}]}}";
+        Path file = Files.createTempFile("hostile-", ".json");
+        Files.writeString(file, scenario, StandardCharsets.UTF_8);
+        page.openFresh(null);
+        int imgs = ((Number) page.js("return document.images.length;")).intValue();
+        int scripts = ((Number) page.js("return document.scripts.length;")).intValue();
+        int serial = page.serial();
+        page.$("open-file").sendKeys(file.toString());
+        page.waitForAnalysis(serial, WAIT);
+        page.js("document.querySelectorAll('.editors details').forEach(function(d){d.open=true;});");
+        page.$("worst-pos").click();
+        page.waitFor("focus drawn", WAIT, () -> page.js("return document.body.dataset.focusDrawn;") != null);
+        page.$("copy-link").click();
+        page.waitFor("link shown", WAIT, () -> !page.$("share-link").getAttribute("value").isEmpty());
+        assertEquals("<img src=x onerror=\"window.__pwned=1\">", page.$("title").getAttribute("value"));
+        assertTrue(page.$("edge-table").getText().contains("<img src=x"), "shown as text");
+        assertEquals(null, page.js("return window.__pwned === undefined ? null : window.__pwned;"), "no script ran");
+        assertEquals(imgs, ((Number) page.js("return document.images.length;")).intValue(), "no <img> was created");
+        assertEquals(scripts, ((Number) page.js("return document.scripts.length;")).intValue(), "no <script> was created");
+        Files.deleteIfExists(file);
+    }
+
+    @Test
+    void aBadFileGivesAMessageAndKeepsTheWork() throws IOException {
+        page.openFresh(null);
+        String work = (String) page.js("return window.Spanwright.scenarioText();");
+        Path file = Files.createTempFile("broken-", ".json");
+        Files.writeString(file, "{\"format\": \"spanwright-scenario\",\n  \"version\": 1,\n  \"title\": oops }", StandardCharsets.UTF_8);
+        page.$("open-file").sendKeys(file.toString());
+        page.waitFor("message shown", WAIT, () -> page.$("notice").isDisplayed());
+        String message = page.$("notice-text").getText();
+        assertTrue(message.contains(file.getFileName().toString()) && message.contains("line 3"), message);
+        assertEquals(work, page.js("return window.Spanwright.scenarioText();"));
+        Files.deleteIfExists(file);
+    }
+
+    @Test
+    void screenshotsOfNormalAndPresentationModes() throws IOException {
+        page.driver.manage().window().setSize(new org.openqa.selenium.Dimension(1280, 720));
+        try {
+            page.openFresh(null);
+            // Make the viewport itself 1280×720 (the window size includes the browser's frame).
+            int extra = ((Number) page.js("return window.outerHeight - window.innerHeight;")).intValue();
+            page.driver.manage().window().setSize(new org.openqa.selenium.Dimension(1280, 720 + extra));
+            assertEquals(720L, page.js("return window.innerHeight;"), "viewport height");
+            page.driver.findElement(By.tagName("body")).sendKeys("1");
+            page.waitFor("focus drawn", WAIT, () -> page.js("return document.body.dataset.focusDrawn;") != null);
+            assertNotNull(page.screenshot("normal-1280x720"));
+            page.driver.findElement(By.tagName("body")).sendKeys("m");
+            page.waitFor("presentation mode", WAIT, () -> "present".equals(page.js("return document.body.dataset.mode;")));
+            assertFalse(page.$("copy-link").isDisplayed(), "controls hidden in presentation mode");
+            assertTrue(page.driver.findElement(By.cssSelector(".caution")).isDisplayed(), "the caution stays visible");
+            page.driver.findElement(By.tagName("body")).sendKeys("0");
+            assertNotNull(page.screenshot("present-1280x720"));
+            page.driver.findElement(By.tagName("body")).sendKeys(Keys.ESCAPE);
+            assertEquals("edit", page.js("return document.body.dataset.mode;"));
+        } finally {
+            page.driver.manage().window().setSize(new org.openqa.selenium.Dimension(1280, 900));
+        }
+    }
+}
