@@ -128,7 +128,7 @@ public final class AnalysisRun {
                 fl |= CONNECTED;
                 values[idx] = r;
                 positiveCount++;
-                if (worstPositive < 0 || r > maxR + TIE * maxR) {
+                if (worstPositive < 0 || r > maxR) {
                     maxR = r;
                     worstPositive = x;
                 }
@@ -136,7 +136,7 @@ public final class AnalysisRun {
                 double c = -r - 1.0;
                 values[idx] = c;
                 negativeCount++;
-                if (worstNegative < 0 || c > maxC + TIE * maxC) {
+                if (worstNegative < 0 || c > maxC) {
                     maxC = c;
                     worstNegative = x;
                 }
@@ -159,11 +159,28 @@ public final class AnalysisRun {
         return done();
     }
 
+    private long firstNear(boolean positive, double max, long fallback) {
+        if (fallback < 0) {
+            return fallback;
+        }
+        double threshold = max - TIE * max;
+        for (int i = 0; i < values.length; i++) {
+            if (((flags[i] & CONNECTED) != 0) == positive && values[i] >= threshold) {
+                return domain.get(i);
+            }
+        }
+        return fallback;
+    }
+
     /** The result; requires {@link #done()}. Witnesses of the worst inputs are computed here. */
     public AnalysisResult result() {
         if (!done()) {
             throw new IllegalStateException("analysis not finished: " + cursor + " of " + domain.size());
         }
+        // W± is the true maximum; the worst input is the first (in input order) whose value is
+        // within the relative tie tolerance of it.
+        worstPositive = firstNear(true, maxR, worstPositive);
+        worstNegative = firstNear(false, maxC, worstNegative);
         return new AnalysisResult(scenario, domain, values, flags, positiveCount, negativeCount,
                 worstPositive < 0 ? Double.NaN : maxR, worstPositive,
                 worstNegative < 0 ? Double.NaN : maxC, worstNegative,

@@ -7,11 +7,8 @@ import java.util.Random;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
 import spanwright.io.NumberText;
-import spanwright.model.Condition;
-import spanwright.model.Edge;
-import spanwright.model.Promise;
+import spanwright.model.RandomScenarios;
 import spanwright.model.Scenario;
-import spanwright.model.Vertex;
 
 /**
  * {@code bench}: inputs per second of {@link Analysis#run} on one core, over seeded random
@@ -83,37 +80,8 @@ final class Bench {
         return 0;
     }
 
-    /** A seeded random scenario: connected host graph, s = v0, t = last vertex. */
+    /** The benchmark's scenario family (see class javadoc). */
     static Scenario randomScenario(Random rnd, int vars, int vertexCount, int edgeCount) {
-        List<String> names = new ArrayList<>();
-        for (int i = 0; i < vars; i++) {
-            names.add("x" + (i + 1));
-        }
-        List<Vertex> vs = new ArrayList<>();
-        for (int i = 0; i < vertexCount; i++) {
-            vs.add(new Vertex("v" + i));
-        }
-        List<Edge> es = new ArrayList<>();
-        for (int i = 0; i < edgeCount; i++) {
-            int u;
-            int v;
-            if (i < vertexCount - 1) {
-                u = i + 1;
-                v = rnd.nextInt(i + 1);
-            } else {
-                u = rnd.nextInt(vertexCount);
-                do {
-                    v = rnd.nextInt(vertexCount);
-                } while (v == u);
-            }
-            Condition c = rnd.nextInt(10) == 0 ? Condition.ALWAYS
-                    : Condition.literal(rnd.nextInt(vars), null, rnd.nextBoolean());
-            int var = c.variable();
-            if (var >= 0) {
-                c = Condition.literal(var, names.get(var), c.positive());
-            }
-            es.add(new Edge("e" + (i + 1), u, v, c, 0.5 + 1.5 * rnd.nextDouble()));
-        }
-        return new Scenario("random", "", names, null, null, Promise.NONE, vs, 0, vertexCount - 1, es, null);
+        return RandomScenarios.generate(rnd, vars, vertexCount, edgeCount, 0.1, 0.5, 0.5, 2.0);
     }
 }

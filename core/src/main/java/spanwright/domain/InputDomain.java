@@ -98,6 +98,19 @@ public final class InputDomain {
         return mask >= 0 && mask < size;
     }
 
+    /** Ordinal of {@code mask} in the domain, or −1 when it is not in the domain. O(log size). */
+    public long ordinalOf(long mask) {
+        if (small != null) {
+            int i = java.util.Arrays.binarySearch(small, (int) mask);
+            return i >= 0 && mask <= Integer.MAX_VALUE ? i : -1;
+        }
+        if (large != null) {
+            int i = java.util.Arrays.binarySearch(large, mask);
+            return i >= 0 ? i : -1;
+        }
+        return mask >= 0 && mask < size ? mask : -1;
+    }
+
     /** Input string of the input with this ordinal. */
     public String format(long ordinal) {
         return Inputs.format(get(ordinal), variableCount);

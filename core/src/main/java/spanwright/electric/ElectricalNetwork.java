@@ -21,13 +21,16 @@ import spanwright.model.Scenario;
  *       algorithms for connectivity and related problems", ESA 2018, arXiv:1804.10591.</li>
  * </ul>
  *
- * <p>Method: union–find for the components of G(x), then a dense Cholesky factorisation of the
- * grounded Laplacian of the relevant (possibly contracted) network with the source node ordered
- * last, so that the last pivot is the Schur complement onto the source: the effective conductance
- * between source and ground. No solve is needed for the value; O(m³/6) flops for m network nodes,
- * O(|E| α(|V|)) for the components. The factorisation is written here (not taken from EJML)
- * because the dimension changes from input to input and the hot loop must not allocate; the tests
- * check it against EJML's pseudo-inverse.
+ * <p>Method: union–find for the components of G(x), then Gaussian elimination of the grounded
+ * Laplacian of the relevant (possibly contracted) network with the source node ordered last, so
+ * that the last pivot is the Schur complement onto the source: the effective conductance between
+ * source and ground. The elimination is done in conductance form (star–mesh transform, as in the
+ * Grassmann–Taksar–Heyman algorithm for Markov chains), which adds only non-negative numbers and so
+ * keeps full relative accuracy even when weights differ by many orders of magnitude. No solve is
+ * needed for the value; O(m³/6) flops for m network nodes, O(|E| α(|V|)) for the components. The
+ * elimination is written here (not taken from EJML) because the dimension changes from input to
+ * input, the hot loop must not allocate, and a general Cholesky loses relative accuracy through
+ * cancellation on ill-conditioned networks; the tests check it against EJML's pseudo-inverse.
  *
  * <p><b>Mutable and single-threaded</b>: an instance owns its work arrays (sized once for the
  * graph) and reuses them on every call. Use one instance per thread.
@@ -47,7 +50,8 @@ public final class ElectricalNetwork {
     private final int[] parent2;
     private final int[] local;
     private final double[] matrix;
-    private final double[] rhs;
+    private final double[] ground;
+    private final double[] pivot;
 
     /** A network on {@code scenario}'s graph and weights; self-loops are ignored. */
     public ElectricalNetwork(Scenario scenario) {
@@ -80,7 +84,8 @@ public final class ElectricalNetwork {
         parent2 = new int[vertexCount];
         local = new int[vertexCount];
         matrix = new double[vertexCount * vertexCount];
-        rhs = new double[vertexCount];
+        ground = new double[vertexCount];
+        pivot = new double[vertexCount];
     }
 
     private static int[] endpoints(Scenario sc, boolean first) {
@@ -159,15 +164,39 @@ public final class ElectricalNetwork {
      * when they are not (so the sign tells which side, with no second call). Allocation-free.
      */
     public double evaluate(boolean[] present) {
+        int m = build(present);
+        if (m < 0) {
+            return -1.0; // C = 0: no absent edge path joins s's side to t's side
+        }
+        double g = eliminate(m);
+        return positiveCase ? 1.0 / g : -1.0 - g;
+    }
+
+    /** Set by {@link #build}: whether the last input built was positive. */
+    private boolean positiveCase;
+    /** Set by {@link #build}: root of s's and t's components of G(x). */
+    private int rootS;
+    private int rootT;
+
+    /**
+     * Builds the network whose effective conductance between the source node (local index m−1)
+     * and ground is 1/R (positive input: present edges of s's component, t grounded) or C
+     * (negative input: absent edges between components of G(x), t's component grounded).
+     *
+     * @return m, the number of non-ground nodes, or −1 when C = 0
+     */
+    private int build(boolean[] present) {
         components(present);
         int rs = find(parent, s);
         int rt = find(parent, t);
-        if (rs == rt) {
-            // positive: Laplacian of s's component, present edges only
-            for (int i = 0; i < vertexCount; i++) {
-                local[i] = -1;
-            }
-            int m = 0;
+        rootS = rs;
+        rootT = rt;
+        positiveCase = rs == rt;
+        for (int i = 0; i < vertexCount; i++) {
+            local[i] = -1;
+        }
+        int m = 0;
+        if (positiveCase) {
             for (int i = 0; i < vertexCount; i++) {
                 if (i != s && i != t && find(parent, i) == rs) {
                     local[i] = m++;
@@ -176,18 +205,12 @@ public final class ElectricalNetwork {
             local[s] = m++;
             clear(m);
             for (int e = 0; e < edgeCount; e++) {
-                if (present[e]) {
-                    int a = local[eu[e]];
-                    int b = local[ev[e]];
-                    if (eu[e] == ev[e] || (a < 0 && b < 0 && eu[e] != t && ev[e] != t)) {
-                        continue;
-                    }
-                    stamp(a, b, conductance[e], m);
+                if (present[e] && eu[e] != ev[e] && find(parent, eu[e]) == rs) {
+                    stamp(local[eu[e]], local[ev[e]], conductance[e], m);
                 }
             }
-            return 1.0 / lastPivot(m);
+            return m;
         }
-        // negative: contract components; network of absent edges between different components.
         for (int i = 0; i < vertexCount; i++) {
             parent2[i] = i;
         }
@@ -202,12 +225,8 @@ public final class ElectricalNetwork {
         }
         int cs = find(parent2, rs);
         if (cs != find(parent2, rt)) {
-            return -1.0; // C = 0: no absent edge path joins s's side to t's side
+            return -1;
         }
-        for (int i = 0; i < vertexCount; i++) {
-            local[i] = -1;
-        }
-        int m = 0;
         for (int i = 0; i < vertexCount; i++) {
             // nodes of the contracted network: component roots in the class-component of s
             if (parent[i] == i && i != rs && i != rt && find(parent2, i) == cs) {
@@ -220,67 +239,97 @@ public final class ElectricalNetwork {
             if (!present[e]) {
                 int ca = find(parent, eu[e]);
                 int cb = find(parent, ev[e]);
-                if (ca == cb) {
-                    continue;
+                if (ca != cb) {
+                    stamp(local[ca], local[cb], conductance[e], m);
                 }
-                int a = ca == rt ? -1 : local[ca];
-                int b = cb == rt ? -1 : local[cb];
-                stamp(a, b, conductance[e], m);
             }
         }
-        return -1.0 - lastPivot(m);
+        return m;
     }
 
     private void clear(int m) {
         Arrays.fill(matrix, 0, m * m, 0.0);
+        Arrays.fill(ground, 0, m, 0.0);
     }
 
-    /** Adds conductance g between local nodes a and b (−1 = ground) to the lower triangle. */
+    /**
+     * Adds conductance g between local nodes a and b (−1 = ground): off-diagonal conductances in
+     * the lower triangle, conductance to ground in {@link #ground}.
+     */
     private void stamp(int a, int b, double g, int m) {
-        if (a >= 0) {
-            matrix[a * m + a] += g;
-        }
-        if (b >= 0) {
-            matrix[b * m + b] += g;
-        }
         if (a >= 0 && b >= 0) {
             if (a > b) {
-                matrix[a * m + b] -= g;
-            } else {
-                matrix[b * m + a] -= g;
+                matrix[a * m + b] += g;
+            } else if (b > a) {
+                matrix[b * m + a] += g;
             }
+        } else if (a >= 0) {
+            ground[a] += g;
+        } else if (b >= 0) {
+            ground[b] += g;
         }
     }
 
     /**
-     * In-place Cholesky (lower triangle, row-major, stride m) of the grounded Laplacian; returns
-     * the last pivot d = L[m−1][m−1]², the Schur complement onto the last node.
+     * Eliminates nodes 0..m−2 in turn by the star–mesh transform (Gaussian elimination on the
+     * grounded Laplacian written in conductances, as in the Grassmann–Taksar–Heyman algorithm:
+     * the pivot is the sum of the node's conductances, and every update adds non-negative
+     * numbers, so no cancellation occurs and the result has small relative error however
+     * ill-conditioned the network). Leaves each eliminated node's row and pivot for
+     * {@link #backSubstitute}. Returns the last node's conductance to ground: the effective
+     * conductance between the source and ground. O(m³/6).
      */
-    private double lastPivot(int m) {
-        double[] a = matrix;
-        for (int j = 0; j < m; j++) {
-            int rj = j * m;
-            double d = a[rj + j];
-            for (int k = 0; k < j; k++) {
-                double l = a[rj + k];
-                d -= l * l;
+    private double eliminate(int m) {
+        double[] c = matrix;
+        for (int k = 0; k < m - 1; k++) {
+            double d = ground[k];
+            for (int j = k + 1; j < m; j++) {
+                d += c[j * m + k];
             }
-            if (j == m - 1) {
-                return d;
+            pivot[k] = d;
+            if (d == 0) {
+                continue;
             }
-            double ljj = Math.sqrt(d);
-            a[rj + j] = ljj;
-            double inv = 1.0 / ljj;
-            for (int i = j + 1; i < m; i++) {
-                int ri = i * m;
-                double sum = a[ri + j];
-                for (int k = 0; k < j; k++) {
-                    sum -= a[ri + k] * a[rj + k];
+            double inv = 1.0 / d;
+            double gk = ground[k];
+            for (int i = k + 1; i < m; i++) {
+                double cik = c[i * m + k];
+                if (cik == 0) {
+                    continue;
                 }
-                a[ri + j] = sum * inv;
+                double f = cik * inv;
+                ground[i] += f * gk;
+                int ri = i * m;
+                for (int j = k + 1; j < i; j++) {
+                    double cjk = c[j * m + k];
+                    if (cjk != 0) {
+                        c[ri + j] += f * cjk;
+                    }
+                }
             }
         }
-        return Double.NaN; // m == 0 cannot happen: the source node is always present
+        pivot[m - 1] = ground[m - 1];
+        return ground[m - 1];
+    }
+
+    /**
+     * After {@link #eliminate}: node potentials for a unit current into the source (node m−1),
+     * ground at 0: φ_{m−1} = 1/g, then φ_k = Σ_{j&gt;k} c_kj φ_j / D_k. Positive sums only.
+     */
+    private double[] backSubstitute(int m) {
+        double[] phi = new double[m];
+        phi[m - 1] = 1.0 / pivot[m - 1];
+        for (int k = m - 2; k >= 0; k--) {
+            if (pivot[k] == 0) {
+                continue;
+            }
+            double sum = 0;
+            for (int j = k + 1; j < m; j++) {
+                sum += matrix[j * m + k] * phi[j];
+            }
+            phi[k] = sum / pivot[k];
+        }
+        return phi;
     }
 
     // ------------------------------------------------------------- witnesses
@@ -293,86 +342,35 @@ public final class ElectricalNetwork {
      * (p_u − p_v)²/w_e on every absent edge. Allocates the returned record; O(|V|³).
      */
     public Witness witness(boolean[] present) {
-        components(present);
-        int rs = find(parent, s);
-        int rt = find(parent, t);
+        int m = build(present);
         double[] pot = new double[vertexCount];
         double[] current = new double[edgeCount];
         double[] energy = new double[edgeCount];
-        if (rs == rt) {
-            // Solve L φ = e_s on s's component with φ(t) = 0.
-            int[] loc = new int[vertexCount];
-            Arrays.fill(loc, -1);
-            int m = 0;
+        if (positiveCase) {
+            eliminate(m);
+            double[] phi = backSubstitute(m);
             for (int i = 0; i < vertexCount; i++) {
-                if (i != t && find(parent, i) == rs) {
-                    loc[i] = m++;
-                }
-            }
-            double[] lap = new double[m * m];
-            for (int e = 0; e < edgeCount; e++) {
-                if (present[e] && eu[e] != ev[e] && find(parent, eu[e]) == rs) {
-                    fullStamp(lap, loc[eu[e]], loc[ev[e]], conductance[e], m);
-                }
-            }
-            double[] b = new double[m];
-            b[loc[s]] = 1.0;
-            double[] phi = solveSpd(lap, b, m);
-            for (int i = 0; i < vertexCount; i++) {
-                pot[i] = i == t ? 0.0 : (loc[i] >= 0 ? phi[loc[i]] : Double.NaN);
+                pot[i] = i == t ? 0.0 : (local[i] >= 0 ? phi[local[i]] : Double.NaN);
             }
             for (int e = 0; e < edgeCount; e++) {
-                current[e] = present[e] && find(parent, eu[e]) == rs
+                current[e] = present[e] && eu[e] != ev[e] && find(parent, eu[e]) == rootS
                         ? (pot[eu[e]] - pot[ev[e]]) * conductance[e] : 0.0;
-                energy[e] = 0.0;
             }
             return new Witness(true, pot[s], pot, current, energy);
         }
-        int[] p2 = new int[vertexCount];
-        for (int i = 0; i < vertexCount; i++) {
-            p2[i] = i;
-        }
-        for (int e = 0; e < edgeCount; e++) {
-            if (!present[e]) {
-                int a = find(parent, eu[e]);
-                int b = find(parent, ev[e]);
-                if (a != b) {
-                    union(p2, a, b);
-                }
-            }
-        }
-        int cs = find(p2, rs);
         double[] classPot = new double[vertexCount];
-        if (cs != find(p2, rt)) {
+        if (m < 0) {
+            int cs = find(parent2, rootS);
             for (int i = 0; i < vertexCount; i++) {
-                classPot[i] = find(p2, i) == cs ? 1.0 : 0.0;
+                classPot[i] = find(parent2, i) == cs ? 1.0 : 0.0;
             }
         } else {
-            int[] loc = new int[vertexCount];
-            Arrays.fill(loc, -1);
-            int m = 0;
-            for (int i = 0; i < vertexCount; i++) {
-                if (parent[i] == i && i != rt && find(p2, i) == cs) {
-                    loc[i] = m++;
-                }
-            }
-            double[] lap = new double[m * m];
-            for (int e = 0; e < edgeCount; e++) {
-                if (!present[e]) {
-                    int ca = find(parent, eu[e]);
-                    int cb = find(parent, ev[e]);
-                    if (ca != cb && find(p2, ca) == cs) {
-                        fullStamp(lap, loc[ca], loc[cb], conductance[e], m);
-                    }
-                }
-            }
-            double[] b = new double[m];
-            b[loc[rs]] = 1.0;
-            double[] phi = solveSpd(lap, b, m);
-            double scale = phi[loc[rs]];
+            eliminate(m);
+            double[] phi = backSubstitute(m);
+            double scale = phi[m - 1];
             for (int i = 0; i < vertexCount; i++) {
                 // classes outside the s–t part of the absent-edge network carry no energy: p = 0
-                classPot[i] = loc[i] >= 0 ? phi[loc[i]] / scale : 0.0;
+                classPot[i] = i == rootS ? 1.0 : (local[i] >= 0 ? phi[local[i]] / scale : 0.0);
             }
         }
         for (int i = 0; i < vertexCount; i++) {
@@ -380,7 +378,6 @@ public final class ElectricalNetwork {
         }
         double total = 0;
         for (int e = 0; e < edgeCount; e++) {
-            current[e] = 0.0;
             if (!present[e]) {
                 double d = pot[eu[e]] - pot[ev[e]];
                 energy[e] = d * d * conductance[e];
@@ -390,54 +387,21 @@ public final class ElectricalNetwork {
         return new Witness(false, total, pot, current, energy);
     }
 
-    private static void fullStamp(double[] a, int i, int j, double g, int m) {
-        if (i >= 0) {
-            a[i * m + i] += g;
+    /**
+     * Replaces the edge weights (resistances, each finite and &gt; 0) in place, keeping the work
+     * arrays: for optimisers that evaluate many weightings of one graph.
+     */
+    public void setWeights(double[] weight) {
+        if (weight.length != edgeCount) {
+            throw new IllegalArgumentException("expected " + edgeCount + " weights, got " + weight.length);
         }
-        if (j >= 0) {
-            a[j * m + j] += g;
-        }
-        if (i >= 0 && j >= 0) {
-            a[i * m + j] -= g;
-            a[j * m + i] -= g;
-        }
-    }
-
-    /** Solves A x = b for symmetric positive definite A (row-major m×m) by Cholesky. */
-    private static double[] solveSpd(double[] a, double[] b, int m) {
-        double[] l = new double[m * m];
-        for (int j = 0; j < m; j++) {
-            double d = a[j * m + j];
-            for (int k = 0; k < j; k++) {
-                d -= l[j * m + k] * l[j * m + k];
+        for (int i = 0; i < edgeCount; i++) {
+            if (!(weight[i] > 0) || Double.isInfinite(weight[i])) {
+                throw new IllegalArgumentException("edge " + i + ": weight must be finite and > 0");
             }
-            double ljj = Math.sqrt(d);
-            l[j * m + j] = ljj;
-            for (int i = j + 1; i < m; i++) {
-                double sum = a[i * m + j];
-                for (int k = 0; k < j; k++) {
-                    sum -= l[i * m + k] * l[j * m + k];
-                }
-                l[i * m + j] = sum / ljj;
-            }
+            resistance[i] = weight[i];
+            conductance[i] = 1.0 / weight[i];
         }
-        double[] y = new double[m];
-        for (int i = 0; i < m; i++) {
-            double sum = b[i];
-            for (int k = 0; k < i; k++) {
-                sum -= l[i * m + k] * y[k];
-            }
-            y[i] = sum / l[i * m + i];
-        }
-        double[] x = new double[m];
-        for (int i = m - 1; i >= 0; i--) {
-            double sum = y[i];
-            for (int k = i + 1; k < m; k++) {
-                sum -= l[k * m + i] * x[k];
-            }
-            x[i] = sum / l[i * m + i];
-        }
-        return x;
     }
 
     /** Resistance of edge {@code e}. */

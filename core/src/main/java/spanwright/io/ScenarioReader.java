@@ -161,12 +161,24 @@ public final class ScenarioReader {
         List<Edge> edges = new ArrayList<>();
         List<String> warnings = new ArrayList<>();
         Set<String> edgeIds = new HashSet<>();
+        // ids given explicitly, so that a default id ("e" + position) never collides with one
+        Set<String> explicitIds = new HashSet<>();
+        for (Object o : elist) {
+            if (o instanceof Map && ((Map<?, ?>) o).get("id") instanceof String) {
+                explicitIds.add((String) ((Map<?, ?>) o).get("id"));
+            }
+        }
         for (int i = 0; i < elist.size(); i++) {
             String p = "$.graph.edges[" + i + "]";
             Map<String, Object> em = object(elist.get(i), p);
-            String id = "e" + (i + 1);
+            String id;
             if (em.get("id") != null && em.get("id") != Json.NULL) {
                 id = string(em.get("id"), p + ".id");
+            } else {
+                id = "e" + (i + 1);
+                for (int k = 2; explicitIds.contains(id) || edgeIds.contains(id); k++) {
+                    id = "e" + (i + 1) + "_" + k;
+                }
             }
             if (!edgeIds.add(id)) {
                 throw new ScenarioException("duplicate-id", p + ".id", "edge id \"" + id + "\" is used twice");
@@ -198,7 +210,20 @@ public final class ScenarioReader {
                 warnings.add("edge \"" + id + "\" (" + p + ") is a self-loop on \"" + vertices.get(u).id()
                         + "\"; it carries no current and is left out of the analysis");
             }
-            edges.add(new Edge(id, u, v, when, w));
+            String group = null;
+            Object go2 = em.get("group");
+            if (go2 != null && go2 != Json.NULL) {
+                group = string(go2, p + ".group");
+            }
+            boolean locked = false;
+            Object lo = em.get("locked");
+            if (lo != null && lo != Json.NULL) {
+                if (!(lo instanceof Boolean)) {
+                    throw new ScenarioException("type", p + ".locked", "\"locked\" is true or false, got " + show(lo));
+                }
+                locked = (Boolean) lo;
+            }
+            edges.add(new Edge(id, u, v, when, w, group, locked));
         }
         return new Scenario(title, notes, variables, functionText, function, promise, vertices, s, t, edges,
                 warnings);

@@ -12,8 +12,18 @@ public final class Edge {
     private final int v;
     private final Condition when;
     private final double weight;
+    private final String group;
+    private final boolean locked;
 
     public Edge(String id, int u, int v, Condition when, double weight) {
+        this(id, u, v, when, weight, null, false);
+    }
+
+    /**
+     * An edge with optimiser hints: edges with the same non-null {@code group} share one weight;
+     * a {@code locked} edge keeps its weight.
+     */
+    public Edge(String id, int u, int v, Condition when, double weight, String group, boolean locked) {
         if (!(weight > 0) || Double.isInfinite(weight)) {
             throw new IllegalArgumentException("weight must be finite and > 0, got " + weight);
         }
@@ -22,6 +32,18 @@ public final class Edge {
         this.v = v;
         this.when = when;
         this.weight = weight;
+        this.group = group;
+        this.locked = locked;
+    }
+
+    /** Name of the weight group this edge belongs to, or null. */
+    public String group() {
+        return group;
+    }
+
+    /** Whether the optimiser must keep this edge's weight. */
+    public boolean locked() {
+        return locked;
     }
 
     public String id() {
@@ -50,6 +72,6 @@ public final class Edge {
     }
 
     public Edge withWeight(double w) {
-        return new Edge(id, u, v, when, w);
+        return new Edge(id, u, v, when, w, group, locked);
     }
 }

@@ -3,11 +3,8 @@ package spanwright.electric;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
-import spanwright.model.Condition;
-import spanwright.model.Edge;
-import spanwright.model.Promise;
+import spanwright.model.RandomScenarios;
 import spanwright.model.Scenario;
-import spanwright.model.Vertex;
 
 /** Test helpers: small networks built in code. */
 final class Nets {
@@ -70,37 +67,7 @@ final class Nets {
      * weights in [0.2, 5].
      */
     static Scenario randomScenario(Random rnd, int vars, int vertexCount, int edgeCount) {
-        List<String> names = new ArrayList<>();
-        for (int i = 0; i < vars; i++) {
-            names.add("x" + i);
-        }
-        List<Vertex> vs = new ArrayList<>();
-        for (int i = 0; i < vertexCount; i++) {
-            vs.add(new Vertex("v" + i));
-        }
-        List<Edge> es = new ArrayList<>();
-        for (int i = 0; i < edgeCount; i++) {
-            int u;
-            int v;
-            if (i < vertexCount - 1) {
-                u = i + 1;
-                v = rnd.nextInt(i + 1);
-            } else {
-                u = rnd.nextInt(vertexCount);
-                do {
-                    v = rnd.nextInt(vertexCount);
-                } while (v == u);
-            }
-            Condition c;
-            if (rnd.nextInt(8) == 0) {
-                c = Condition.ALWAYS;
-            } else {
-                int var = rnd.nextInt(vars);
-                c = Condition.literal(var, names.get(var), rnd.nextBoolean());
-            }
-            es.add(new Edge("e" + i, u, v, c, 0.2 + 4.8 * rnd.nextDouble()));
-        }
-        return new Scenario("random", "", names, null, null, Promise.NONE, vs, 0, vertexCount - 1, es, null);
+        return RandomScenarios.generate(rnd, vars, vertexCount, edgeCount, 0.125, 0.5, 0.2, 5.0);
     }
 
     static boolean[] present(Scenario sc, long mask) {

@@ -1,0 +1,77 @@
+package spanwright.optimize;
+
+import java.util.List;
+import spanwright.analysis.InputDetail;
+import spanwright.model.Scenario;
+
+/**
+ * The outcome of {@link WeightOptimizer#optimize}: the scenario with the best weights found
+ * (balanced so that W₊ = W₋ when no weight is locked), the values, the worst inputs with their
+ * certificates (optimal flow for the worst positive input, optimal potential for the worst
+ * negative input, under the returned weights), the objective trace of the best start (√(W₊W₋)
+ * after each accepted outer step; never increasing), counts and a status. Immutable.
+ */
+public final class OptimizationResult {
+    /** Why the optimiser stopped. */
+    public enum Status {
+        /** an outer step improved by less than the tolerance, or no descent was found */
+        CONVERGED,
+        /** the iteration or time budget ran out first */
+        BUDGET_REACHED,
+        /** the caller cancelled through the progress listener */
+        CANCELLED,
+        /** nothing to optimise: a side of the domain is empty, or every weight is locked */
+        NOTHING_TO_DO
+    }
+
+    public final Status status;
+    public final Scenario scenario;
+    public final double initialComplexity;
+    public final double complexity;
+    public final double maxResistance;
+    public final double maxCapacitance;
+    public final long worstPositive;
+    public final long worstNegative;
+    public final InputDetail worstPositiveCertificate;
+    public final InputDetail worstNegativeCertificate;
+    public final List<Double> trace;
+    public final int iterations;
+    public final long evaluations;
+    public final int starts;
+    public final int bestStart;
+    public final boolean balanced;
+    public final int candidatePositive;
+    public final int candidateNegative;
+    public final long domainSize;
+
+    OptimizationResult(Status status, Scenario scenario, double initialComplexity, double complexity,
+            double maxResistance, double maxCapacitance, long worstPositive, long worstNegative,
+            InputDetail worstPositiveCertificate, InputDetail worstNegativeCertificate, List<Double> trace,
+            int iterations, long evaluations, int starts, int bestStart, boolean balanced,
+            int candidatePositive, int candidateNegative, long domainSize) {
+        this.status = status;
+        this.scenario = scenario;
+        this.initialComplexity = initialComplexity;
+        this.complexity = complexity;
+        this.maxResistance = maxResistance;
+        this.maxCapacitance = maxCapacitance;
+        this.worstPositive = worstPositive;
+        this.worstNegative = worstNegative;
+        this.worstPositiveCertificate = worstPositiveCertificate;
+        this.worstNegativeCertificate = worstNegativeCertificate;
+        this.trace = List.copyOf(trace);
+        this.iterations = iterations;
+        this.evaluations = evaluations;
+        this.starts = starts;
+        this.bestStart = bestStart;
+        this.balanced = balanced;
+        this.candidatePositive = candidatePositive;
+        this.candidateNegative = candidateNegative;
+        this.domainSize = domainSize;
+    }
+
+    /** Progress callback; return false to cancel. */
+    public interface Listener {
+        boolean progress(int start, int iteration, double complexity);
+    }
+}

@@ -1,0 +1,59 @@
+package spanwright.optimize;
+
+/** Budgets and choices for {@link WeightOptimizer}. Immutable; use the with… methods. */
+public final class OptimizerOptions {
+    /** How edges share weights. */
+    public enum Tie {
+        /** every edge has its own weight (edges' {@code group} keys are still honoured) */
+        GROUPS,
+        /** edges with the same condition (literal) share one weight, on top of group keys */
+        LITERAL
+    }
+
+    final int starts;
+    final long seed;
+    final int maxIterations;
+    final long maxMillis;
+    final double tolerance;
+    final Tie tie;
+
+    private OptimizerOptions(int starts, long seed, int maxIterations, long maxMillis, double tolerance, Tie tie) {
+        this.starts = starts;
+        this.seed = seed;
+        this.maxIterations = maxIterations;
+        this.maxMillis = maxMillis;
+        this.tolerance = tolerance;
+        this.tie = tie;
+    }
+
+    /** One start from the scenario's weights, 200 outer iterations, 60 s, tolerance 1e-10. */
+    public static OptimizerOptions defaults() {
+        return new OptimizerOptions(1, 1, 200, 60_000, 1e-10, Tie.GROUPS);
+    }
+
+    /** Number of starts: the scenario's weights, then random log-normal perturbations of them. */
+    public OptimizerOptions withStarts(int k) {
+        return new OptimizerOptions(Math.max(1, k), seed, maxIterations, maxMillis, tolerance, tie);
+    }
+
+    public OptimizerOptions withSeed(long s) {
+        return new OptimizerOptions(starts, s, maxIterations, maxMillis, tolerance, tie);
+    }
+
+    public OptimizerOptions withMaxIterations(int it) {
+        return new OptimizerOptions(starts, seed, Math.max(1, it), maxMillis, tolerance, tie);
+    }
+
+    public OptimizerOptions withMaxMillis(long ms) {
+        return new OptimizerOptions(starts, seed, maxIterations, Math.max(1, ms), tolerance, tie);
+    }
+
+    /** Stop when one outer step lowers √(W₊W₋) by less than this fraction. */
+    public OptimizerOptions withTolerance(double tol) {
+        return new OptimizerOptions(starts, seed, maxIterations, maxMillis, tol, tie);
+    }
+
+    public OptimizerOptions withTie(Tie t) {
+        return new OptimizerOptions(starts, seed, maxIterations, maxMillis, tolerance, t);
+    }
+}
