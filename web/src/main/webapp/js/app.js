@@ -478,6 +478,7 @@
       let answer;
       try { answer = JSON.parse(m.text); } catch (e) { answer = { ok: false, error: { message: "unreadable answer", path: "$" } }; }
       if (m.type === "analysis-error" || !answer.ok) { showAnalysisError(answer.error || {}); return; }
+      $("timing").dataset.retried = m.retried ? "true" : "false";
       showAnalysis(answer.result, m.inputs, m.ms, m.total, performance.now() - started);
     });
     state.job = id;
@@ -1091,6 +1092,7 @@
   }
 
   // A read-only window for tests and for the curious: the current scenario text and analysis.
+  window.SpanwrightView = view;
   window.Spanwright = {
     scenarioText: function () { return text(); },
     engine: function () { return state.engine; },

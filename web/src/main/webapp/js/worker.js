@@ -158,7 +158,7 @@
         flags[i] = (r.connected ? 1 : 0) | (r.f === null || r.f === undefined ? 0 : 2) | (r.f === 1 || r.f === true ? 4 : 0);
       }
       if (parsed.result) delete parsed.result.inputs;
-      post({ type: "analysis", id: job.id, text: JSON.stringify(parsed), ms: ms, total: job.total,
+      post({ type: "analysis", id: job.id, text: JSON.stringify(parsed), ms: ms, total: job.total, retried: job.retried,
         inputs: { codes: codes, values: values, flags: flags } }, [codes.buffer, values.buffer, flags.buffer]);
     }
 

@@ -82,7 +82,8 @@ class BenchIT {
                 double ms = Double.parseDouble(page.data("timing", "ms"));
                 double rate = Double.parseDouble(page.data("timing", "rate"));
                 record("engine=" + engine + " 2^16 inputs (ladder of 8 rungs: " + ladderSize() + "): "
-                        + Math.round(ms) + " ms in the worker, " + Math.round(rate) + " inputs/s");
+                        + Math.round(ms) + " ms in the worker, " + Math.round(rate) + " inputs/s"
+                        + ("true".equals(page.data("timing", "retried")) ? " (includes a second, one-call pass after the stepped finish failed in core)" : ""));
             }
         } finally {
             Files.deleteIfExists(file);

@@ -162,6 +162,29 @@ class WorkbenchIT {
     }
 
     @Test
+    void drawingToolsAddAVertexAndAnEdge() {
+        page.openFresh(null);
+        int vertices = ((Number) page.js("return JSON.parse(window.Spanwright.scenarioText()).graph.vertices.length;")).intValue();
+        int edges = ((Number) page.js("return JSON.parse(window.Spanwright.scenarioText()).graph.edges.length;")).intValue();
+        page.driver.findElement(By.cssSelector("[data-tool=vertex]")).click();
+        WebElement canvas = page.$("graph");
+        // Near the top-left corner of the drawing, where the default scenario has no vertex.
+        new org.openqa.selenium.interactions.Actions(page.driver)
+                .moveToElement(canvas, -canvas.getSize().getWidth() / 2 + 25, -canvas.getSize().getHeight() / 2 + 25).click().perform();
+        page.waitFor("vertex added", WAIT, () -> ((Number) page.js("return JSON.parse(window.Spanwright.scenarioText()).graph.vertices.length;")).intValue() == vertices + 1);
+        // Join the new vertex to s with the edge tool, clicking both vertices at their drawn positions.
+        page.driver.findElement(By.cssSelector("[data-tool=edge]")).click();
+        for (String which : new String[] {"v1", (String) page.js("return JSON.parse(window.Spanwright.scenarioText()).graph.s;")}) {
+            Map<?, ?> pos = (Map<?, ?>) page.js("var p = window.SpanwrightView.cy.getElementById(arguments[0]).renderedPosition(); return {x: p.x, y: p.y};", which);
+            new org.openqa.selenium.interactions.Actions(page.driver)
+                    .moveToElement(canvas, (int) Math.round(((Number) pos.get("x")).doubleValue()) - canvas.getSize().getWidth() / 2,
+                            (int) Math.round(((Number) pos.get("y")).doubleValue()) - canvas.getSize().getHeight() / 2).click().perform();
+        }
+        page.waitFor("edge added", WAIT, () -> ((Number) page.js("return JSON.parse(window.Spanwright.scenarioText()).graph.edges.length;")).intValue() == edges + 1);
+        page.driver.findElement(By.cssSelector("[data-tool=move]")).click();
+    }
+
+    @Test
     void aShareLinkRoundTrips() {
         page.openFresh(null);
         WebElement title = page.$("title");
