@@ -26,6 +26,9 @@ final class Bench {
         int scenarios = 8;
         long seed = 1;
         int rounds = 5;
+        if (!args.isEmpty() && args.get(0).equals("optimize")) {
+            return optimizer(args.subList(1, args.size()), out);
+        }
         for (int i = 0; i < args.size(); i++) {
             String a = args.get(i);
             if (i + 1 >= args.size()) {
@@ -77,6 +80,39 @@ final class Bench {
                     + NumberText.sig(sec, 4) + " s = " + NumberText.sig(rate, 4) + " inputs/s");
         }
         out.println("best: " + NumberText.sig(best, 4) + " inputs/s (checksum " + NumberText.sig(checksum, 8) + ")");
+        return 0;
+    }
+
+    /**
+     * {@code bench optimize [--leaves 16] [--seed 1] [--rounds 4]}: time for the optimiser to take a
+     * seeded random read-once formula from unit weights to √N (the adversary bound of read-once
+     * formulas), one thread.
+     */
+    private static int optimizer(List<String> args, PrintStream out) {
+        int leaves = 16;
+        long seed = 1;
+        int rounds = 4;
+        for (int i = 0; i + 1 < args.size(); i += 2) {
+            int v = Integer.parseInt(args.get(i + 1));
+            switch (args.get(i)) {
+                case "--leaves": leaves = v; break;
+                case "--seed": seed = v; break;
+                case "--rounds": rounds = v; break;
+                default: throw new Main.UsageException("bench optimize: unknown option " + args.get(i));
+            }
+        }
+        Scenario sc = RandomScenarios.readOnceFormula(new Random(seed), leaves, 1.0);
+        out.println("bench optimize: read-once formula on " + leaves + " variables (seed " + seed + "), "
+                + sc.edges().size() + " edges, unit weights; target sqrt(N) = " + NumberText.sig(Math.sqrt(leaves), 10));
+        for (int round = 0; round < rounds; round++) {
+            long t0 = System.nanoTime();
+            spanwright.optimize.OptimizationResult r = spanwright.optimize.WeightOptimizer.optimize(sc);
+            double sec = (System.nanoTime() - t0) / 1e9;
+            out.println("  round " + round + (round == 0 ? " (warm-up)" : "") + ": " + NumberText.sig(sec, 4) + " s, "
+                    + r.iterations + " steps, " + r.evaluations + " solves, sqrt(W+W-) = "
+                    + NumberText.sig(r.complexity, 12) + ", relative gap to sqrt(N) "
+                    + NumberText.sig(r.complexity / Math.sqrt(leaves) - 1, 3) + ", " + r.status);
+        }
         return 0;
     }
 

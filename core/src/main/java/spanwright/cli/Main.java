@@ -49,8 +49,11 @@ public final class Main {
             switch (args[0]) {
                 case "analyze":
                     return analyze(rest, out, err);
+                case "optimize":
+                    return OptimizeCommand.run(rest, out, err);
                 case "bench":
                     return Bench.run(rest, out, err);
+                case "build": return BuildCommand.run(rest, out, err);
                 default:
                     err.println("spanwright: unknown command \"" + args[0] + "\"");
                     err.print(usage());
@@ -73,8 +76,13 @@ public final class Main {
                 + "      (R on positive inputs, C on negative inputs) and the bound sqrt(W+ W-).\n"
                 + "      With no FILE, the built-in default scenario. --json: machine-readable output;\n"
                 + "      --inputs: add every input's row.\n"
+                + "  optimize [FILE] [--starts K] [--seed S] [--iterations N] [--seconds T] [--tie literal]\n"
+                + "           [--json] [-o OUT.json]\n"
+                + "      Choose edge weights that lower sqrt(W+ W-) (monotone descent, with certificates);\n"
+                + "      -o writes the scenario with the new weights.\n"
                 + "  bench [--vars 14] [--vertices 24] [--edges 48] [--scenarios 8] [--seed 1] [--rounds 5]\n"
                 + "      Inputs per second of the analysis on seeded random scenarios (one core).\n"
+                + BuildCommand.usage()
                 + "\n"
                 + "exit status: 0 ok, 1 reduction wrong on some input, 2 invalid scenario or usage\n";
     }

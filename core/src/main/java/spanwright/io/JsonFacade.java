@@ -167,6 +167,103 @@ public final class JsonFacade {
         }
     }
 
+    /**
+     * Builds a scenario from a formula, a function (decision tree or diagram), a host graph or a
+     * composition; the command-line {@code build} command sends the same requests. Request, one of:
+     * <ul>
+     *   <li>{@code {"kind":"formula","expression":"a & (b | !c)","variables":["a","b","c"],
+     *       "weights":"rule"}} — series–parallel network; {@code variables} optional (default: the
+     *       expression's, in order of first appearance), {@code weights} {@code "rule"} (default,
+     *       the read-once-exact rule) or {@code "unit"};</li>
+     *   <li>{@code {"kind":"tree","function":"maj(a,b,c)" or "00010111","variables":[…],
+     *       "diagram":false,"order":["b","a"],"weights":"guess"}} — decision tree of minimum depth,
+     *       or along {@code order}; {@code diagram: true} merges equal subfunctions; a function made
+     *       only of 2^n characters 0/1 is a truth table in input order (variables x1 … xn unless
+     *       given); {@code weights} {@code "guess"} (default) or {@code "unit"};</li>
+     *   <li>{@code {"kind":"host","family":"grid","size":[3,4],"s":"r1c1","t":"r3c4","seed":1,
+     *       "atMostMissing":2}} — families path [n], cycle [n], grid [k,l], complete [n],
+     *       bipartite [a,b], hypercube [d], random [n,m] (with {@code seed}); {@code s}, {@code t},
+     *       {@code seed}, {@code atMostMissing} optional; or {@code {"kind":"host","family":"given",
+     *       "scenario":{…}}} to use a drawn graph;</li>
+     *   <li>{@code {"kind":"compose","outer":{scenario},"inner":{scenario}}}.</li>
+     * </ul>
+     * Answer: {@code {"ok":true,"scenario":{format v1 object},"stats":{"vertices","edges",
+     * "variables", …builder facts}}} (keys in {@code docs/builders.md}), or the error envelope
+     * with the request path at fault (e.g. {@code $.size}, {@code $.outer.graph.edges[2].u}).
+     * Cost: that of the builder (the composition analyses both parts).
+     */
+    public static String build(String requestJson) {
+        try {
+            spanwright.build.Built b = BuildRequest.run(Json.parse(requestJson));
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("ok", true);
+            m.put("scenario", ScenarioWriter.toJson(b.scenario()));
+            m.put("stats", b.stats());
+            return Json.write(m);
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /**
+     * Optimises the edge weights. {@code optionsJson} may be null or
+     * {@code {"starts": 1, "seed": 1, "iterations": 200, "seconds": 60, "tie": "groups"|"literal"}}.
+     * Answer: {@code {"ok":true,"result":{… as optimize --json …},"scenario":"…scenario text with the
+     * new weights…"}}.
+     */
+    public static String optimize(String scenarioJson, String optionsJson) {
+        try {
+            Scenario sc = ScenarioReader.read(scenarioJson);
+            spanwright.optimize.OptimizerOptions opt = optimizerOptions(optionsJson);
+            spanwright.optimize.OptimizationResult r = spanwright.optimize.WeightOptimizer.optimize(sc, opt, null);
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("ok", true);
+            m.put("result", ResultJson.optimization(r));
+            m.put("scenario", ResultJson.withWeights(scenarioJson, r.scenario));
+            return Json.write(m);
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** Parses optimiser options (JSON object, all keys optional). */
+    public static spanwright.optimize.OptimizerOptions optimizerOptions(String optionsJson) {
+        spanwright.optimize.OptimizerOptions opt = spanwright.optimize.OptimizerOptions.defaults();
+        if (optionsJson == null || optionsJson.trim().isEmpty()) {
+            return opt;
+        }
+        Map<String, Object> o = ScenarioReader.object(Json.parse(optionsJson), "$options");
+        for (Map.Entry<String, Object> e : o.entrySet()) {
+            String path = "$options." + e.getKey();
+            Object v = e.getValue();
+            if (e.getKey().equals("tie")) {
+                String t = ScenarioReader.string(v, path);
+                if (t.equals("groups")) {
+                    opt = opt.withTie(spanwright.optimize.OptimizerOptions.Tie.GROUPS);
+                } else if (t.equals("literal")) {
+                    opt = opt.withTie(spanwright.optimize.OptimizerOptions.Tie.LITERAL);
+                } else {
+                    throw new ScenarioException("option", path, "tie is \"groups\" or \"literal\", got \"" + t + "\"");
+                }
+                continue;
+            }
+            if (!(v instanceof Double) || (Double) v <= 0 || (Double) v != Math.rint((Double) v)) {
+                throw new ScenarioException("option", path, e.getKey() + " must be a whole number > 0");
+            }
+            long k = (long) (double) (Double) v;
+            switch (e.getKey()) {
+                case "starts": opt = opt.withStarts((int) Math.min(k, 1000)); break;
+                case "seed": opt = opt.withSeed(k); break;
+                case "iterations": opt = opt.withMaxIterations((int) Math.min(k, 100000)); break;
+                case "seconds": opt = opt.withMaxMillis(k * 1000); break;
+                default:
+                    throw new ScenarioException("option", path, "unknown option \"" + e.getKey()
+                            + "\" (known: starts, seed, iterations, seconds, tie)");
+            }
+        }
+        return opt;
+    }
+
     public static String encodeShare(String scenarioJson) {
         try {
             // validate first: a link to a broken scenario helps nobody

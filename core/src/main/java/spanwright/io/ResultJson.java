@@ -128,6 +128,70 @@ public final class ResultJson {
         return m;
     }
 
+    /** The optimiser's result (keys documented in docs/cli.md, {@code optimize --json}). */
+    public static Map<String, Object> optimization(spanwright.optimize.OptimizationResult r) {
+        Scenario sc = r.scenario;
+        int n = sc.variableCount();
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("status", r.status.name().toLowerCase().replace('_', '-'));
+        m.put("iterations", r.iterations);
+        m.put("evaluations", r.evaluations);
+        m.put("starts", r.starts);
+        m.put("bestStart", r.bestStart);
+        m.put("initialComplexity", num(r.initialComplexity));
+        m.put("complexity", num(r.complexity));
+        Map<String, Object> pos = new LinkedHashMap<>();
+        pos.put("maxResistance", num(r.maxResistance));
+        pos.put("worst", r.worstPositive < 0 ? Json.NULL : Inputs.format(r.worstPositive, n));
+        m.put("positive", pos);
+        Map<String, Object> neg = new LinkedHashMap<>();
+        neg.put("maxCapacitance", num(r.maxCapacitance));
+        neg.put("worst", r.worstNegative < 0 ? Json.NULL : Inputs.format(r.worstNegative, n));
+        m.put("negative", neg);
+        Map<String, Object> w = new LinkedHashMap<>();
+        for (Edge e : sc.edges()) {
+            w.put(e.id(), e.weight());
+        }
+        m.put("weights", w);
+        m.put("balanced", r.balanced);
+        List<Object> trace = new ArrayList<>();
+        for (double d : r.trace) {
+            trace.add(d);
+        }
+        m.put("trace", trace);
+        Map<String, Object> cand = new LinkedHashMap<>();
+        cand.put("domainSize", r.domainSize);
+        cand.put("positive", r.candidatePositive);
+        cand.put("negative", r.candidateNegative);
+        cand.put("why", "inputs dominated by a neighbour under Rayleigh monotonicity cannot be worst and are skipped "
+                + "during the search; the final numbers come from the full analysis");
+        m.put("evaluated", cand);
+        Map<String, Object> cert = new LinkedHashMap<>();
+        cert.put("positive", r.worstPositiveCertificate == null ? Json.NULL : detail(sc, r.worstPositiveCertificate));
+        cert.put("negative", r.worstNegativeCertificate == null ? Json.NULL : detail(sc, r.worstNegativeCertificate));
+        m.put("certificate", cert);
+        m.put("note", "the weight problem is not convex in general: the best of " + r.starts
+                + " start(s) is reported, a local optimum, not a proof of optimality");
+        m.put("convention", CONVENTION);
+        m.put("caution", CAUTION);
+        return m;
+    }
+
+    /**
+     * The scenario JSON text with new edge weights, by edge position; every other key, including
+     * unknown ones, is kept as it was.
+     */
+    @SuppressWarnings("unchecked")
+    public static String withWeights(String scenarioJson, Scenario weighted) {
+        Map<String, Object> doc = (Map<String, Object>) Json.parse(scenarioJson);
+        Map<String, Object> graph = (Map<String, Object>) doc.get("graph");
+        List<Object> edges = (List<Object>) graph.get("edges");
+        for (int i = 0; i < edges.size(); i++) {
+            ((Map<String, Object>) edges.get(i)).put("weight", weighted.edges().get(i).weight());
+        }
+        return Json.writePretty(doc);
+    }
+
     static Object num(double v) {
         return Double.isNaN(v) || Double.isInfinite(v) ? Json.NULL : (Object) Double.valueOf(v);
     }

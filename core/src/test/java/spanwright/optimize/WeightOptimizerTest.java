@@ -22,62 +22,8 @@ import spanwright.model.Vertex;
 
 class WeightOptimizerTest {
 
-    /** Builds series–parallel networks in the test, independently of the builders package. */
-    static final class Sp {
-        final List<Vertex> vertices = new ArrayList<>();
-        final List<Edge> edges = new ArrayList<>();
-        final List<String> vars = new ArrayList<>();
-        final Random rnd;
-
-        Sp(Random rnd) {
-            this.rnd = rnd;
-        }
-
-        int vertex() {
-            vertices.add(new Vertex("v" + vertices.size()));
-            return vertices.size() - 1;
-        }
-
-        /** A random read-once AND/OR formula on {@code leaves} fresh variables between a and b. */
-        void formula(int a, int b, int leaves, boolean and, double weight) {
-            if (leaves == 1) {
-                String name = "x" + (vars.size() + 1);
-                vars.add(name);
-                edges.add(new Edge("e" + edges.size(), a, b, Condition.literal(vars.size() - 1, name, true), weight));
-                return;
-            }
-            int parts = 2 + rnd.nextInt(Math.min(3, leaves - 1));
-            int[] sizes = new int[parts];
-            for (int i = 0; i < parts; i++) {
-                sizes[i] = 1;
-            }
-            for (int r = leaves - parts; r > 0; r--) {
-                sizes[rnd.nextInt(parts)]++;
-            }
-            int from = a;
-            for (int i = 0; i < parts; i++) {
-                if (and) {
-                    int to = i == parts - 1 ? b : vertex();
-                    formula(from, to, sizes[i], false, weight);
-                    from = to;
-                } else {
-                    formula(a, b, sizes[i], true, weight);
-                }
-            }
-        }
-
-        Scenario scenario(int s, int t) {
-            // conditions were made with indices into the final variable list, which only grows
-            return new Scenario("sp", "", vars, null, null, Promise.NONE, vertices, s, t, edges, null);
-        }
-    }
-
     static Scenario readOnce(long seed, int leaves) {
-        Sp sp = new Sp(new Random(seed));
-        int s = sp.vertex();
-        int t = sp.vertex();
-        sp.formula(s, t, leaves, sp.rnd.nextBoolean(), 1.0);
-        return sp.scenario(s, t);
+        return RandomScenarios.readOnceFormula(new Random(seed), leaves, 1.0);
     }
 
     @ParameterizedTest
@@ -89,6 +35,7 @@ class WeightOptimizerTest {
         // weights the optimiser must reach √N within 1e-6 relative.
         int leaves = 4 + (int) (seed * 2 % 9);
         Scenario sc = readOnce(seed, leaves);
+        assertEquals(Boolean.TRUE, Analysis.run(sc).correct(), "the generator's graph decides its formula");
         OptimizationResult r = WeightOptimizer.optimize(sc);
         assertEquals(Math.sqrt(leaves), r.complexity, 1e-6 * Math.sqrt(leaves),
                 "N = " + leaves + ", status " + r.status + ", trace " + r.trace);
