@@ -264,6 +264,58 @@ public final class JsonFacade {
         return opt;
     }
 
+    /**
+     * Renames variable {@code from} to {@code to} everywhere in a scenario: the variable list,
+     * every edge condition, the function and an expression promise (token by token, keeping the
+     * user's layout; see {@link spanwright.expr.ExprRename}). The scenario must be valid before and
+     * after. Answer {@code {"ok":true,"scenario":"…text…"}} or the error envelope (the input is not
+     * changed).
+     */
+    @SuppressWarnings("unchecked")
+    public static String renameVariable(String scenarioJson, String from, String to) {
+        try {
+            Scenario sc = ScenarioReader.read(scenarioJson);
+            if (!sc.variables().contains(from)) {
+                return error("unknown-variable", "$.variables", "there is no variable \"" + from + "\" to rename");
+            }
+            if (!spanwright.expr.ExprParser.isName(to)) {
+                return error("variable-name", "$.variables", "\"" + to + "\" is not a valid variable name "
+                        + "(a letter or _, then letters, digits, _ or .)");
+            }
+            if (!from.equals(to) && sc.variables().contains(to)) {
+                return error("duplicate-id", "$.variables", "a variable named \"" + to + "\" already exists");
+            }
+            Map<String, Object> doc = (Map<String, Object>) Json.parse(scenarioJson);
+            List<Object> vars = (List<Object>) doc.get("variables");
+            for (int i = 0; i < vars.size(); i++) {
+                if (from.equals(vars.get(i))) {
+                    vars.set(i, to);
+                }
+            }
+            if (doc.get("function") instanceof String) {
+                doc.put("function", spanwright.expr.ExprRename.rename((String) doc.get("function"), from, to));
+            }
+            if (doc.get("promise") instanceof String) {
+                doc.put("promise", spanwright.expr.ExprRename.rename((String) doc.get("promise"), from, to));
+            }
+            List<Object> edges = (List<Object>) ((Map<String, Object>) doc.get("graph")).get("edges");
+            for (Object o : edges) {
+                Map<String, Object> e = (Map<String, Object>) o;
+                String when = ((String) e.get("when")).trim();
+                if (when.equals(from)) {
+                    e.put("when", to);
+                } else if (when.startsWith("!") && when.substring(1).trim().equals(from)) {
+                    e.put("when", "!" + to);
+                }
+            }
+            String text = Json.writePretty(doc);
+            ScenarioReader.read(text);
+            return ok("scenario", text);
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
     public static String encodeShare(String scenarioJson) {
         try {
             // validate first: a link to a broken scenario helps nobody
