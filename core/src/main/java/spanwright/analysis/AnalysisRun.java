@@ -117,8 +117,16 @@ public final class AnalysisRun {
         long end = cursor + Math.min(Math.max(0, maxInputs), domain.size() - cursor);
         for (long k = cursor; k < end; k++) {
             long x = domain.get(k);
-            for (int e = 0; e < edgeCount; e++) {
-                present[e] = always[e] || (((x >>> shift[e]) & 1L) != 0) == polarity[e];
+            if (n <= 31) {
+                // int arithmetic: 64-bit longs are emulated, and slow, in the page's JavaScript engine
+                int xi = (int) x;
+                for (int e = 0; e < edgeCount; e++) {
+                    present[e] = always[e] || (((xi >>> shift[e]) & 1) != 0) == polarity[e];
+                }
+            } else {
+                for (int e = 0; e < edgeCount; e++) {
+                    present[e] = always[e] || (((x >>> shift[e]) & 1L) != 0) == polarity[e];
+                }
             }
             double r = network.evaluate(present);
             int idx = (int) k;

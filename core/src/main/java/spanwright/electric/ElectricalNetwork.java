@@ -52,6 +52,7 @@ public final class ElectricalNetwork {
     private final double[] matrix;
     private final double[] ground;
     private final double[] pivot;
+    private final double[] column;
 
     /** A network on {@code scenario}'s graph and weights; self-loops are ignored. */
     public ElectricalNetwork(Scenario scenario) {
@@ -86,6 +87,7 @@ public final class ElectricalNetwork {
         matrix = new double[vertexCount * vertexCount];
         ground = new double[vertexCount];
         pivot = new double[vertexCount];
+        column = new double[vertexCount];
     }
 
     private static int[] endpoints(Scenario sc, boolean first) {
@@ -281,10 +283,13 @@ public final class ElectricalNetwork {
      */
     private double eliminate(int m) {
         double[] c = matrix;
+        double[] col = column;
         for (int k = 0; k < m - 1; k++) {
             double d = ground[k];
             for (int j = k + 1; j < m; j++) {
-                d += c[j * m + k];
+                double v = c[j * m + k];
+                col[j] = v;
+                d += v;
             }
             pivot[k] = d;
             if (d == 0) {
@@ -293,7 +298,7 @@ public final class ElectricalNetwork {
             double inv = 1.0 / d;
             double gk = ground[k];
             for (int i = k + 1; i < m; i++) {
-                double cik = c[i * m + k];
+                double cik = col[i];
                 if (cik == 0) {
                     continue;
                 }
@@ -301,10 +306,7 @@ public final class ElectricalNetwork {
                 ground[i] += f * gk;
                 int ri = i * m;
                 for (int j = k + 1; j < i; j++) {
-                    double cjk = c[j * m + k];
-                    if (cjk != 0) {
-                        c[ri + j] += f * cjk;
-                    }
+                    c[ri + j] += f * col[j];
                 }
             }
         }

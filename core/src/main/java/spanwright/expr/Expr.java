@@ -64,6 +64,10 @@ public abstract class Expr {
 
         @Override
         public boolean eval(long mask) {
+            // int arithmetic where it suffices: longs are emulated in the page's JavaScript engine
+            if (shift < 31 && (mask >>> 31) == 0) {
+                return (((int) mask >>> shift) & 1) != 0;
+            }
             return ((mask >>> shift) & 1L) != 0;
         }
 
