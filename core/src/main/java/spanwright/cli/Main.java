@@ -40,9 +40,13 @@ public final class Main {
 
     /** Runs a command; returns the exit status. Never throws for bad input. */
     public static int run(String[] args, PrintStream out, PrintStream err) {
-        if (args.length == 0 || args[0].equals("help") || args[0].equals("--help") || args[0].equals("-h")) {
+        if (args.length == 0) {
+            err.print(usage());
+            return INVALID;
+        }
+        if (args[0].equals("help") || args[0].equals("--help") || args[0].equals("-h")) {
             out.print(usage());
-            return args.length == 0 ? INVALID : OK;
+            return OK;
         }
         List<String> rest = new ArrayList<>(List.of(args).subList(1, args.length));
         try {

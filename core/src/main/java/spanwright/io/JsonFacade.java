@@ -37,7 +37,9 @@ import spanwright.model.Scenario;
  * <p>Not thread-safe (jobs live in a static table); the page calls it from one worker.
  */
 public final class JsonFacade {
-    private static final Map<Integer, AnalysisRun> JOBS = new HashMap<>();
+    /** At most this many unfinished analysis jobs are kept; starting another drops the oldest. */
+    public static final int MAX_JOBS = 4;
+    private static final Map<Integer, AnalysisRun> JOBS = new java.util.LinkedHashMap<>();
     private static int nextJob = 1;
 
     private JsonFacade() {}
@@ -100,6 +102,10 @@ public final class JsonFacade {
             Scenario sc = ScenarioReader.read(scenarioJson);
             AnalysisRun run = Analysis.start(sc);
             int id = nextJob++;
+            // a page that forgets to finish or cancel must not hold every old run's arrays
+            while (JOBS.size() >= MAX_JOBS) {
+                JOBS.remove(JOBS.keySet().iterator().next());
+            }
             JOBS.put(id, run);
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
