@@ -201,7 +201,7 @@ class MainTest {
 
         Run none = run();
         assertEquals(2, none.status);
-        assertTrue(none.out.contains("usage:"), none.out);
+        assertTrue(none.err.contains("usage:"), "usage goes to stderr when no command is given: " + none.err);
 
         Run help = run("--help");
         assertEquals(0, help.status);
