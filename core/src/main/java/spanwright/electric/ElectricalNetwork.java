@@ -338,8 +338,8 @@ public final class ElectricalNetwork {
 
     /**
      * The full witness of one input: for a positive input the unit s→t electrical current on every
-     * present edge (oriented u→v) and vertex potentials with φ(t) = 0 and φ(s) = R (vertices
-     * outside s's component have NaN potential); for a negative input the optimal potential with
+     * present edge (oriented u→v), its energy w_e·i_e² (summing to R), and vertex potentials with
+     * φ(t) = 0 and φ(s) = R (vertices outside s's component have NaN potential); for a negative input the optimal potential with
      * p = 1 on s's side and 0 on t's side, constant on components of G(x), and the energy
      * (p_u − p_v)²/w_e on every absent edge. Allocates the returned record; O(|V|³).
      */
@@ -357,6 +357,7 @@ public final class ElectricalNetwork {
             for (int e = 0; e < edgeCount; e++) {
                 current[e] = present[e] && eu[e] != ev[e] && find(parent, eu[e]) == rootS
                         ? (pot[eu[e]] - pot[ev[e]]) * conductance[e] : 0.0;
+                energy[e] = resistance[e] * current[e] * current[e];
             }
             return new Witness(true, pot[s], pot, current, energy);
         }

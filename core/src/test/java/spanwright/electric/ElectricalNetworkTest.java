@@ -114,6 +114,7 @@ class ElectricalNetworkTest {
                     net_out[ed.u()] += i;
                     net_out[ed.v()] -= i;
                     energy += ed.weight() * i * i;
+                    assertEquals(ed.weight() * i * i, w.energy[e], 1e-12 * Math.max(1, w.value), "edge energy w i^2");
                     if (!Double.isNaN(w.potential[ed.u()])) {
                         // Ohm: potential drop = resistance × current
                         assertEquals(w.potential[ed.u()] - w.potential[ed.v()], ed.weight() * i, 1e-10);
