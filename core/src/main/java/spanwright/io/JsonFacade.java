@@ -30,6 +30,9 @@ import spanwright.model.Scenario;
  *       {@code cancelAnalysis(ID)}. Single-threaded; for a worker that reports progress.</li>
  *   <li>{@code detail(scenario, input)} → one input's witness: {@code {"ok":true,"x","connected",
  *       "f","value","edges":[{"id","present","current","energy"}],"potentials":{vertexId: p}}}</li>
+ *   <li>{@code build(request)} → {@code {"ok":true,"scenario":{...},"stats":{...}}}: a scenario
+ *       built from a formula, a function, a host graph or a composition (request format on
+ *       {@link #build}).</li>
  *   <li>{@code encodeShare(scenario)} → {@code {"ok":true,"fragment":"..."}};
  *       {@code decodeShare(fragment)} → {@code {"ok":true,"scenario":"...json text..."}}</li>
  * </ul>
@@ -167,6 +170,8 @@ public final class JsonFacade {
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
             m.putAll(ResultJson.detail(sc, Analysis.detail(sc, mask)));
+            // an input outside the promise can still be inspected, but say so
+            m.put("inDomain", sc.promise().allows(mask));
             return Json.write(m);
         } catch (RuntimeException e) {
             return fail(e);
