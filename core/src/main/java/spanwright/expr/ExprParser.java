@@ -29,11 +29,14 @@ import java.util.List;
 public final class ExprParser {
     private final String text;
     private final List<String> variables;
+    /** When true, undeclared names are collected into {@link #variables} instead of rejected. */
+    private final boolean declaring;
     private int pos;
 
-    private ExprParser(String text, List<String> variables) {
+    private ExprParser(String text, List<String> variables, boolean declaring) {
         this.text = text;
         this.variables = variables;
+        this.declaring = declaring;
     }
 
     /**
@@ -42,15 +45,41 @@ public final class ExprParser {
      * @throws ExprException with the column and what was expected
      */
     public static Expr parse(String text, List<String> variables) {
-        ExprParser p = new ExprParser(text, variables);
-        p.skipWs();
-        if (p.pos >= text.length()) {
+        return new ExprParser(text, variables, false).whole();
+    }
+
+    /**
+     * The variables an expression uses, in order of first appearance (for callers that build a
+     * scenario from an expression alone, such as the builders). The text is fully parsed, so the
+     * same syntax errors as {@link #parse} are reported. Cost O(length × distinct names).
+     *
+     * @throws ExprException with the column and what was expected
+     */
+    public static List<String> variablesOf(String text) {
+        List<String> names = new ArrayList<>();
+        new ExprParser(text, names, true).whole();
+        return names;
+    }
+
+    /** True if {@code name} is one of the language's function names (so not a variable name). */
+    public static boolean isFunctionName(String name) {
+        switch (name) {
+            case "any": case "all": case "parity": case "maj": case "thr": case "exactly": case "atmost":
+                return true;
+            default:
+                return false;
+        }
+    }
+
+    private Expr whole() {
+        skipWs();
+        if (pos >= text.length()) {
             throw new ExprException(1, "the expression is empty");
         }
-        Expr e = p.iff();
-        p.skipWs();
-        if (p.pos < text.length()) {
-            throw p.expected("an operator or the end of the expression");
+        Expr e = iff();
+        skipWs();
+        if (pos < text.length()) {
+            throw expected("an operator or the end of the expression");
         }
         return e;
     }
@@ -186,6 +215,14 @@ public final class ExprParser {
         }
         pos = afterName;
         int index = variables.indexOf(name);
+        if (index < 0 && declaring) {
+            if (isFunctionName(name)) {
+                throw new ExprException(start + 1, "'" + name + "' is a function name; write " + name
+                        + "(…) or choose another variable name");
+            }
+            variables.add(name);
+            index = variables.size() - 1;
+        }
         if (index < 0) {
             throw new ExprException(start + 1, "unknown variable '" + name + "' (declared: "
                     + String.join(", ", variables) + ")");

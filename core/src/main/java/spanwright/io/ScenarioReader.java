@@ -230,12 +230,7 @@ public final class ScenarioReader {
     }
 
     private static boolean isReserved(String name) {
-        switch (name) {
-            case "any": case "all": case "parity": case "maj": case "thr": case "exactly": case "atmost":
-                return true;
-            default:
-                return false;
-        }
+        return ExprParser.isFunctionName(name);
     }
 
     static Expr expression(String text, List<String> variables, String path) {

@@ -1,0 +1,244 @@
+package spanwright.cli;
+
+import java.io.IOException;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import spanwright.build.Built;
+import spanwright.io.BuildRequest;
+import spanwright.io.Json;
+import spanwright.io.ScenarioException;
+import spanwright.io.ScenarioWriter;
+
+/**
+ * {@code build}: writes a format-v1 scenario built from a formula, a function, a host graph or a
+ * composition, to stdout or {@code -o FILE}; a summary of the construction goes to stderr. The
+ * arguments become the same request the page sends ({@link spanwright.io.JsonFacade#build}), run
+ * by {@link BuildRequest}. Exit status 0, or 2 for bad usage or input (the message names the
+ * argument or file at fault).
+ */
+final class BuildCommand {
+    private BuildCommand() {}
+
+    static String usage() {
+        return "  build formula EXPR [--vars a,b,c] [--weights rule|unit] [-o FILE]\n"
+                + "  build tree EXPR|TABLE [--vars a,b,c] [--diagram] [--order a,b,c] [--weights guess|unit] [-o FILE]\n"
+                + "  build host FAMILY SIZE [--s V] [--t V] [--seed N] [--at-most-missing K] [-o FILE]\n"
+                + "  build host given FILE [--s V] [--t V] [--at-most-missing K] [-o FILE]\n"
+                + "  build compose OUTER.json INNER.json [-o FILE]\n"
+                + "      Write a scenario built from a formula (series-parallel), a function (decision tree\n"
+                + "      or diagram; TABLE = 2^n characters 0/1), a host graph (FAMILY: path, cycle, grid,\n"
+                + "      complete, bipartite, hypercube, random; SIZE like 3x4) or a composition.\n";
+    }
+
+    static int run(List<String> args, PrintStream out, PrintStream err) {
+        if (args.isEmpty()) {
+            throw new Main.UsageException("build: say what to build from: formula, tree, host or compose\n" + usage());
+        }
+        String what = args.get(0);
+        List<String> positional = new ArrayList<>();
+        Map<String, String> options = new LinkedHashMap<>();
+        for (int i = 1; i < args.size(); i++) {
+            String a = args.get(i);
+            if (a.equals("--diagram")) {
+                options.put(a, "true");
+            } else if (a.equals("-o") || (a.startsWith("--") && a.length() > 2)) {
+                if (i + 1 >= args.size()) {
+                    throw new Main.UsageException("build " + what + ": " + a + " needs a value");
+                }
+                options.put(a, args.get(++i));
+            } else {
+                positional.add(a);
+            }
+        }
+        Map<String, Object> request = new LinkedHashMap<>();
+        Map<String, String> files = new LinkedHashMap<>();
+        switch (what) {
+            case "formula":
+                allow(what, options, "--vars", "--weights", "-o");
+                request.put("kind", "formula");
+                request.put("expression", one(what, positional, "EXPR"));
+                putList(request, "variables", options.get("--vars"));
+                putString(request, "weights", options.get("--weights"));
+                break;
+            case "tree":
+                allow(what, options, "--vars", "--diagram", "--order", "--weights", "-o");
+                request.put("kind", "tree");
+                request.put("function", one(what, positional, "EXPR|TABLE"));
+                putList(request, "variables", options.get("--vars"));
+                putList(request, "order", options.get("--order"));
+                putString(request, "weights", options.get("--weights"));
+                request.put("diagram", options.containsKey("--diagram"));
+                break;
+            case "host": {
+                allow(what, options, "--s", "--t", "--seed", "--at-most-missing", "-o");
+                if (positional.size() != 2) {
+                    throw new Main.UsageException("build host: give FAMILY and SIZE (e.g. grid 3x4) or given FILE");
+                }
+                request.put("kind", "host");
+                request.put("family", positional.get(0));
+                if (positional.get(0).equals("given")) {
+                    files.put("$.scenario", positional.get(1));
+                    request.put("scenario", readJson(positional.get(1)));
+                } else {
+                    request.put("size", size(positional.get(1)));
+                }
+                putString(request, "s", options.get("--s"));
+                putString(request, "t", options.get("--t"));
+                putNumber(request, "seed", options.get("--seed"), "--seed");
+                putNumber(request, "atMostMissing", options.get("--at-most-missing"), "--at-most-missing");
+                break;
+            }
+            case "compose":
+                allow(what, options, "-o");
+                if (positional.size() != 2) {
+                    throw new Main.UsageException("build compose: give OUTER.json and INNER.json");
+                }
+                request.put("kind", "compose");
+                files.put("$.outer", positional.get(0));
+                files.put("$.inner", positional.get(1));
+                request.put("outer", readJson(positional.get(0)));
+                request.put("inner", readJson(positional.get(1)));
+                break;
+            default:
+                throw new Main.UsageException("build: unknown kind \"" + what + "\" (formula, tree, host, compose)");
+        }
+        Built built;
+        try {
+            built = BuildRequest.run(request);
+        } catch (ScenarioException e) {
+            err.println("spanwright: build " + what + ": " + where(e.path(), files) + ": " + e.getMessage() + " ["
+                    + e.code() + "]");
+            return Main.INVALID;
+        }
+        String text = ScenarioWriter.write(built.scenario());
+        String file = options.get("-o");
+        if (file == null) {
+            out.print(text);
+        } else {
+            try {
+                Files.writeString(Path.of(file), text, StandardCharsets.UTF_8);
+            } catch (IOException e) {
+                throw new Main.UsageException("build: cannot write " + file + ": " + e.getMessage());
+            }
+            err.println("spanwright: wrote " + file);
+        }
+        StringBuilder sb = new StringBuilder("spanwright: built");
+        boolean first = true;
+        for (Map.Entry<String, Object> e : built.stats().entrySet()) {
+            sb.append(first ? " " : ", ").append(e.getKey()).append(" = ").append(Json.write(e.getValue()));
+            first = false;
+        }
+        err.println(sb);
+        return Main.OK;
+    }
+
+    private static void allow(String what, Map<String, String> options, String... allowed) {
+        for (String o : options.keySet()) {
+            if (!List.of(allowed).contains(o)) {
+                throw new Main.UsageException("build " + what + ": unknown option " + o);
+            }
+        }
+    }
+
+    private static String one(String what, List<String> positional, String name) {
+        if (positional.size() != 1) {
+            throw new Main.UsageException("build " + what + ": give exactly one " + name + " (quote it)"
+                    + (positional.isEmpty() ? "" : "; got " + positional.size() + " arguments"));
+        }
+        return positional.get(0);
+    }
+
+    private static void putString(Map<String, Object> request, String key, String value) {
+        if (value != null) {
+            request.put(key, value);
+        }
+    }
+
+    private static void putList(Map<String, Object> request, String key, String value) {
+        if (value != null) {
+            List<Object> l = new ArrayList<>();
+            for (String part : value.split(",", -1)) {
+                l.add(part.trim());
+            }
+            request.put(key, l);
+        }
+    }
+
+    private static void putNumber(Map<String, Object> request, String key, String value, String option) {
+        if (value != null) {
+            try {
+                request.put(key, (double) Long.parseLong(value.trim()));
+            } catch (NumberFormatException e) {
+                throw new Main.UsageException("build host: " + option + " takes a whole number, got \"" + value + "\"");
+            }
+        }
+    }
+
+    /** "3x4", "3,4" or "5" → a list of numbers. */
+    private static List<Object> size(String text) {
+        List<Object> l = new ArrayList<>();
+        for (String part : text.split("[x×,]", -1)) {
+            try {
+                l.add((double) Integer.parseInt(part.trim()));
+            } catch (NumberFormatException e) {
+                throw new Main.UsageException("build host: SIZE is whole numbers joined by x, like 3x4 or 5; got \""
+                        + text + "\"");
+            }
+        }
+        return l;
+    }
+
+    private static Object readJson(String file) {
+        String text = Main.readScenarioText(file);
+        try {
+            return Json.parse(text);
+        } catch (ScenarioException e) {
+            throw new Main.UsageException(file + ": " + e.getMessage());
+        }
+    }
+
+    /** The argument (or file and path inside it) that a request path refers to. */
+    static String where(String path, Map<String, String> files) {
+        for (Map.Entry<String, String> f : files.entrySet()) {
+            if (path.equals(f.getKey()) || path.startsWith(f.getKey() + ".") || path.startsWith(f.getKey() + "[")) {
+                return f.getValue() + " at $" + path.substring(f.getKey().length());
+            }
+        }
+        String head = path;
+        int cut = path.indexOf('[');
+        if (cut > 0) {
+            head = path.substring(0, cut);
+        }
+        switch (head) {
+            case "$.expression":
+            case "$.function":
+                return "EXPR";
+            case "$.variables":
+                return "--vars";
+            case "$.order":
+                return "--order";
+            case "$.size":
+                return "SIZE";
+            case "$.family":
+                return "FAMILY";
+            case "$.s":
+                return "--s";
+            case "$.t":
+                return "--t";
+            case "$.seed":
+                return "--seed";
+            case "$.atMostMissing":
+                return "--at-most-missing";
+            case "$.weights":
+                return "--weights";
+            default:
+                return path;
+        }
+    }
+}
