@@ -300,8 +300,14 @@ public final class HostGraphBuilder {
                     }
                     xy[i] = new double[] {x, y};
                 }
-                h.s = "h" + "0".repeat(dim);
-                h.t = "h" + "1".repeat(dim);
+                StringBuilder zeros = new StringBuilder("h");
+                StringBuilder ones = new StringBuilder("h");
+                for (int b = 0; b < dim; b++) {
+                    zeros.append('0');
+                    ones.append('1');
+                }
+                h.s = zeros.toString();
+                h.t = ones.toString();
                 break;
             }
             default: // path, cycle, complete: v1 … vn in creation order
@@ -355,7 +361,7 @@ public final class HostGraphBuilder {
         boolean complement = m > pairs / 2;
         long want = complement ? pairs - m : m;
         while (chosen.size() < want) {
-            long p = Math.floorMod(splitMix(state) >>> 1, pairs);
+            long p = (splitMix(state) >>> 1) % pairs;
             chosen.add(p);
         }
         for (long p = 0, u = 0; u < n; u++) {
