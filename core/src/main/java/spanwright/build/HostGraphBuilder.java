@@ -387,10 +387,7 @@ public final class HostGraphBuilder {
 
     /** SplitMix64 (Steele, Lea &amp; Flood, OOPSLA 2014): the next value of the stream. */
     static long splitMix(long[] state) {
-        long z = (state[0] += 0x9E3779B97F4A7C15L);
-        z = (z ^ (z >>> 30)) * 0xBF58476D1CE4E5B9L;
-        z = (z ^ (z >>> 27)) * 0x94D049BB133111EBL;
-        return z ^ (z >>> 31);
+        return spanwright.model.SeededRandom.mix(state);
     }
 
     /** Vertices on a circle, in order, the first at the left. */
