@@ -30,6 +30,45 @@ public final class Analysis {
         return new AnalysisRun(scenario);
     }
 
+    /**
+     * The {@link Summary} of the inputs with ordinals [from, to) of the scenario's domain (input
+     * order), with fixed-bin histograms. Summaries of adjacent ranges merge exactly
+     * ({@link Summary#merge}), so a domain can be split across threads or machines. Memory
+     * O(|V|² + bins), independent of the range's length; cost (to − from) × O(|E| + |V|³).
+     *
+     * @throws IllegalArgumentException when the range is not inside the domain
+     */
+    public static Summary summarize(Scenario scenario, long from, long to) {
+        spanwright.domain.InputDomain domain = spanwright.domain.InputDomain.of(scenario);
+        if (from < 0 || to < from || to > domain.size()) {
+            throw new IllegalArgumentException("range [" + from + ", " + to + ") is not inside the domain of "
+                    + domain.size() + " inputs");
+        }
+        Summary.Builder b = new Summary.Builder(scenario, Summary.Coverage.DOMAIN, from, true);
+        for (long k = from; k < to; k++) {
+            b.add(domain.get(k));
+        }
+        return b.build();
+    }
+
+    /**
+     * The {@link Summary} of candidates [from, to) of {@code candidates} (chosen for this
+     * scenario's graph, under any weights for {@link CandidateInputs#undominated} and under weights
+     * invariant under the symmetry for {@link CandidateInputs#orbits}). Histograms count the
+     * candidates evaluated, not the inputs they stand for.
+     */
+    public static Summary summarize(Scenario scenario, CandidateInputs candidates, int from, int to) {
+        if (from < 0 || to < from || to > candidates.size()) {
+            throw new IllegalArgumentException("range [" + from + ", " + to + ") is not inside the "
+                    + candidates.size() + " candidates");
+        }
+        Summary.Builder b = new Summary.Builder(scenario, Summary.Coverage.CANDIDATES, from, true);
+        for (int k = from; k < to; k++) {
+            b.add(candidates.input(k));
+        }
+        return b.build();
+    }
+
     /** Which edges (indices into {@code scenario.edges()}) are present on input {@code mask}. */
     public static boolean[] presentEdges(Scenario scenario, long mask) {
         List<Edge> edges = scenario.edges();

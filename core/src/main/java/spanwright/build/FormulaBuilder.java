@@ -8,6 +8,7 @@ import spanwright.expr.Expr;
 import spanwright.expr.ExprException;
 import spanwright.expr.ExprParser;
 import spanwright.io.ScenarioException;
+import spanwright.io.ScenarioReader;
 import spanwright.model.Condition;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;
@@ -73,6 +74,23 @@ public final class FormulaBuilder {
      *     {@code too-large} when the expansion has more than {@link ScenarioDraft#MAX_EDGES} leaves
      */
     public static Built build(String expression, List<String> variables, Weights weights) {
+        return build(expression, variables, weights, ScenarioReader.MAX_ENUMERATED_VARIABLES);
+    }
+
+    /** Most variables of {@link #buildInMemory} (inputs are 64-bit masks). */
+    public static final int MAX_IN_MEMORY_VARIABLES = 64;
+
+    /**
+     * As {@link #build}, but with up to {@link #MAX_IN_MEMORY_VARIABLES} variables, for scenarios
+     * that stay in memory (family sweeps past brute force, which evaluate chosen inputs only).
+     * Such a scenario cannot be written to a file that reads back when it has more variables
+     * than the reader's enumeration limit.
+     */
+    public static Built buildInMemory(String expression, List<String> variables, Weights weights) {
+        return build(expression, variables, weights, MAX_IN_MEMORY_VARIABLES);
+    }
+
+    private static Built build(String expression, List<String> variables, Weights weights, int maxVariables) {
         List<String> vars = BuildSupport.variables(expression, variables, "$.expression", "$.variables");
         Expr e = BuildSupport.parse(expression, vars, "$.expression");
         AndOrForm.Node form = AndOrForm.of(e, true);
@@ -87,7 +105,7 @@ public final class FormulaBuilder {
                 + (weights == Weights.RULE
                         ? "weights by the read-once rule (AND children scaled to W- = 1, OR children to W+ = 1), balanced so W+ = W-."
                         : "unit weights.");
-        return network(form, vars, expression, title, notes, weights, Promise.NONE);
+        return network(form, vars, expression, title, notes, weights, Promise.NONE, maxVariables);
     }
 
     /**
@@ -96,7 +114,14 @@ public final class FormulaBuilder {
      */
     static Built network(AndOrForm.Node form, List<String> vars, String functionText, String title, String notes,
             Weights weights, Promise promise) {
+        return network(form, vars, functionText, title, notes, weights, promise,
+                ScenarioReader.MAX_ENUMERATED_VARIABLES);
+    }
+
+    private static Built network(AndOrForm.Node form, List<String> vars, String functionText, String title,
+            String notes, Weights weights, Promise promise, int maxVariables) {
         ScenarioDraft d = new ScenarioDraft();
+        d.allowVariables(maxVariables);
         Map<String, Object> stats = new LinkedHashMap<>();
         stats.put("leaves", form.leaves);
         int s;

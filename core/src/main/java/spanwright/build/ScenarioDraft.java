@@ -37,6 +37,16 @@ final class ScenarioDraft {
     private final Map<String, Integer> index = new HashMap<>();
     private final List<Edge> edges = new ArrayList<>();
     private final java.util.Set<String> edgeIds = new java.util.HashSet<>();
+    /** Most variables {@link #build} accepts: the reader's limit unless widened for in-memory use. */
+    private int maxVariables = ScenarioReader.MAX_ENUMERATED_VARIABLES;
+
+    /**
+     * Accepts up to {@code max} (≤ 64) variables: for scenarios that stay in memory (family
+     * sweeps); a file of more than the reader's limit would not read back.
+     */
+    void allowVariables(int max) {
+        maxVariables = max;
+    }
 
     /** Adds a vertex with a position (NaN for none); returns its index. */
     int vertex(String id, double x, double y) {
@@ -111,7 +121,14 @@ final class ScenarioDraft {
      */
     Scenario build(String title, String notes, List<String> variables, String functionText, Promise promise,
             int s, int t, String path) {
-        checkVariableCount(variables.size(), path);
+        if (maxVariables > ScenarioReader.MAX_ENUMERATED_VARIABLES) {
+            if (variables.size() > maxVariables) {
+                throw new ScenarioException("too-many-variables", path, "the construction has " + variables.size()
+                        + " variables, more than the in-memory limit of " + maxVariables);
+            }
+        } else {
+            checkVariableCount(variables.size(), path);
+        }
         Expr function = null;
         if (functionText != null) {
             try {
