@@ -8,6 +8,8 @@ import java.util.Map;
 import java.util.Set;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
+import spanwright.analysis.CandidateInputs;
+import spanwright.analysis.Summary;
 import spanwright.electric.Witness;
 import spanwright.model.Edge;
 import spanwright.model.Scenario;
@@ -58,8 +60,25 @@ public final class WeightOptimizer {
      */
     public static OptimizationResult optimize(Scenario scenario, OptimizerOptions options,
             OptimizationResult.Listener listener) {
+        return optimize(scenario, null, options, listener);
+    }
+
+    /**
+     * Optimises {@code scenario}'s weights on a caller's candidate inputs: the inputs that can be
+     * worst, for example one per orbit of a symmetry ({@link CandidateInputs#orbits}). With orbit
+     * candidates the weights must stay invariant under the symmetry: tie them by edge orbit with
+     * the edges' {@code group} keys. The result's values and worst inputs are then taken over the
+     * candidates (no pass over the whole domain, which may be far too large); with candidates by
+     * Rayleigh dominance the worst negative input is the first among them (see {@link CandidateInputs}).
+     *
+     * @param candidates null for {@link CandidateInputs#undominated} of the whole domain
+     * @param listener called after each outer step; may be null; return false to cancel
+     */
+    public static OptimizationResult optimize(Scenario scenario, CandidateInputs candidates, OptimizerOptions options,
+            OptimizationResult.Listener listener) {
         long deadline = System.currentTimeMillis() + options.maxMillis;
-        WorstCaseEvaluator ev = new WorstCaseEvaluator(scenario);
+        WorstCaseEvaluator ev = candidates == null ? new WorstCaseEvaluator(scenario)
+                : new WorstCaseEvaluator(scenario, candidates);
         int m = ev.keptEdge.length;
 
         // weight groups over kept edges
@@ -271,10 +290,20 @@ public final class WeightOptimizer {
             all[ev.keptEdge[k]] = w[k];
         }
         Scenario out = scenario.withWeights(all);
+        if (ev.callerCandidates) {
+            // the domain may be far too large for a pass: values and worst inputs over the candidates
+            Summary r = Analysis.summarize(out, ev.candidates, 0, ev.candidates.size());
+            return new OptimizationResult(status, out, initial, r.complexity(), r.maxResistance(), r.maxCapacitance(),
+                    r.worstPositive(), r.worstNegative(),
+                    r.worstPositive() < 0 ? null : Analysis.detail(out, r.worstPositive()),
+                    r.worstNegative() < 0 ? null : Analysis.detail(out, r.worstNegative()), trace,
+                    iterations, ev.solves, starts, bestStart, balanced, ev.positives.length, ev.negatives.length,
+                    (long) Math.min(ev.domainSize, Long.MAX_VALUE));
+        }
         AnalysisResult r = Analysis.run(out);
         return new OptimizationResult(status, out, initial, r.complexity(), r.maxResistance(), r.maxCapacitance(),
                 r.worstPositive(), r.worstNegative(), r.worstPositiveDetail(), r.worstNegativeDetail(), trace,
                 iterations, ev.solves, starts, bestStart, balanced, ev.positives.length, ev.negatives.length,
-                ev.domainSize);
+                (long) ev.domainSize);
     }
 }

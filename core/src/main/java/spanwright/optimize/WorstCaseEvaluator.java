@@ -35,11 +35,19 @@ final class WorstCaseEvaluator {
     int worstNegative;
     long solves;
 
+    /** Whether the candidates came from the caller (then results are taken over them only). */
+    final boolean callerCandidates;
+
     WorstCaseEvaluator(Scenario sc) {
-        this(sc, CandidateInputs.undominated(sc));
+        this(sc, CandidateInputs.undominated(sc), false);
     }
 
     WorstCaseEvaluator(Scenario sc, CandidateInputs candidates) {
+        this(sc, candidates, true);
+    }
+
+    private WorstCaseEvaluator(Scenario sc, CandidateInputs candidates, boolean callerCandidates) {
+        this.callerCandidates = callerCandidates;
         this.scenario = sc;
         this.candidates = candidates;
         this.inputs = new InputEvaluator(sc);
