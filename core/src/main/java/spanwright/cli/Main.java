@@ -58,6 +58,7 @@ public final class Main {
                 case "bench":
                     return Bench.run(rest, out, err);
                 case "build": return BuildCommand.run(rest, out, err);
+                case "bounds": return BoundsCommand.run(rest, out, err);
                 default:
                     err.println("spanwright: unknown command \"" + args[0] + "\"");
                     err.print(usage());
@@ -87,6 +88,7 @@ public final class Main {
                 + "  bench [--vars 14] [--vertices 24] [--edges 48] [--scenarios 8] [--seed 1] [--rounds 5]\n"
                 + "      Inputs per second of the analysis on seeded random scenarios (one core).\n"
                 + BuildCommand.usage()
+                + BoundsCommand.usage()
                 + "\n"
                 + "exit status: 0 ok, 1 reduction wrong on some input, 2 invalid scenario or usage\n";
     }
@@ -143,7 +145,7 @@ public final class Main {
         return Boolean.FALSE.equals(r.correct()) ? WRONG_REDUCTION : OK;
     }
 
-    private static String pad(String s, int width) {
+    static String pad(String s, int width) {
         StringBuilder sb = new StringBuilder(s);
         while (sb.length() < width) {
             sb.append(' ');

@@ -327,6 +327,26 @@ public final class JsonFacade {
         }
     }
 
+    /**
+     * Lower bounds and classical measures of the scenario's function on its domain, with the page's
+     * size limits ({@link spanwright.bounds.Bounds.Limits#PAGE}). Answer: {@code {"ok":true,
+     * "result":{...}}}, result being the object of {@code bounds --json} (keys in docs/bounds.md),
+     * or the error envelope: {@code no-function} at {@code $.function}, the reader's codes, or
+     * {@code bound-violated} if a certified bound contradicts a theorem (a bug). Cost: the SDP for
+     * n ≤ 6 takes up to a few seconds; the rest is faster.
+     */
+    public static String bounds(String scenarioJson) {
+        try {
+            Scenario sc = ScenarioReader.read(scenarioJson);
+            spanwright.bounds.BoundsReport r = spanwright.bounds.Bounds.compute(sc, spanwright.bounds.Bounds.Limits.PAGE);
+            return ok("result", BoundsJson.report(r));
+        } catch (spanwright.bounds.Bounds.BoundViolation e) {
+            return error("bound-violated", "$", e.getMessage());
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
     public static String encodeShare(String scenarioJson) {
         try {
             // validate first: a link to a broken scenario helps nobody

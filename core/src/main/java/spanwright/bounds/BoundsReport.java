@@ -1,0 +1,95 @@
+package spanwright.bounds;
+
+import java.util.Map;
+import spanwright.analysis.AnalysisResult;
+import spanwright.model.Scenario;
+
+/**
+ * What {@link Bounds#compute} found for a scenario: the analysis (√(W₊W₋)), the adversary bounds,
+ * the classical measures, the two ratios, and for every quantity not computed the reason, keyed by
+ * its JSON name ({@code general}, {@code positive}, {@code classical}, {@code deg},
+ * {@code complexity}, {@code optimalityGap}, {@code speedup}). Immutable.
+ */
+public final class BoundsReport {
+    private final Scenario scenario;
+    private final Bounds.Limits limits;
+    private final TargetFunction function;
+    private final AnalysisResult analysis;
+    private final GeneralAdversary general;
+    private final PositiveAdversary positive;
+    private final ClassicalMeasures classical;
+    private final double optimalityGap;
+    private final double speedup;
+    private final Map<String, String> reasons;
+
+    BoundsReport(Scenario scenario, Bounds.Limits limits, TargetFunction function, AnalysisResult analysis,
+            GeneralAdversary general, PositiveAdversary positive, ClassicalMeasures classical, double optimalityGap,
+            double speedup, Map<String, String> reasons) {
+        this.scenario = scenario;
+        this.limits = limits;
+        this.function = function;
+        this.analysis = analysis;
+        this.general = general;
+        this.positive = positive;
+        this.classical = classical;
+        this.optimalityGap = optimalityGap;
+        this.speedup = speedup;
+        this.reasons = Map.copyOf(reasons);
+    }
+
+    public Scenario scenario() {
+        return scenario;
+    }
+
+    public Bounds.Limits limits() {
+        return limits;
+    }
+
+    /** f on the domain, or null when n exceeds every limit. */
+    public TargetFunction function() {
+        return function;
+    }
+
+    public AnalysisResult analysis() {
+        return analysis;
+    }
+
+    /** √(W₊W₋) of the scenario's weights (NaN when a side is empty). */
+    public double complexity() {
+        return analysis.complexity();
+    }
+
+    /** ADV±, or null (see {@link #reason}). */
+    public GeneralAdversary general() {
+        return general;
+    }
+
+    /** ADV, or null. */
+    public PositiveAdversary positive() {
+        return positive;
+    }
+
+    /** D, C, s, bs, deg, or null. */
+    public ClassicalMeasures classical() {
+        return classical;
+    }
+
+    /** √(W₊W₋) / ADV± (with the certified lower value of ADV±), or NaN. */
+    public double optimalityGap() {
+        return optimalityGap;
+    }
+
+    /** D / √(W₊W₋), or NaN. */
+    public double speedup() {
+        return speedup;
+    }
+
+    /** Why the quantity with this JSON name was not computed, or null. */
+    public String reason(String key) {
+        return reasons.get(key);
+    }
+
+    public Map<String, String> reasons() {
+        return reasons;
+    }
+}

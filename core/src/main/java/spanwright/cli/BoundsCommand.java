@@ -1,0 +1,240 @@
+package spanwright.cli;
+
+import java.io.PrintStream;
+import java.util.ArrayList;
+import java.util.List;
+import spanwright.bounds.Bounds;
+import spanwright.bounds.BoundsReport;
+import spanwright.bounds.Certificate;
+import spanwright.bounds.ClassicalMeasures;
+import spanwright.bounds.GeneralAdversary;
+import spanwright.bounds.PositiveAdversary;
+import spanwright.bounds.SensitiveBlocks;
+import spanwright.bounds.TargetFunction;
+import spanwright.io.BoundsJson;
+import spanwright.io.Json;
+import spanwright.io.NumberText;
+import spanwright.io.ResultJson;
+import spanwright.io.ScenarioReader;
+import spanwright.model.Scenario;
+import spanwright.model.SeededRandom;
+
+/**
+ * {@code bounds FILE [--json]}: the general and positive adversary bounds, the classical measures
+ * with their witnesses, and how the scenario's √(W₊W₋) compares (optimality gap, speed-up over
+ * classical), with the command-line size limits ({@link Bounds.Limits#CLI}). Exit status as
+ * {@code analyze}, plus {@link #BOUND_VIOLATED} when a certified bound contradicts a theorem.
+ */
+final class BoundsCommand {
+    /** Exit status when √(W₊W₋) &lt; ADV± or ADV &gt; ADV± beyond tolerance: a bug, reported loudly. */
+    static final int BOUND_VIOLATED = 3;
+
+    private BoundsCommand() {}
+
+    static String usage() {
+        return "  bounds FILE [--json] | bounds --bench [--seed S]\n"
+                + "      Lower bounds for the scenario's function: the general adversary ADV+- (an SDP, with its\n"
+                + "      certified interval; up to " + GeneralAdversary.CLI_MAX_VARIABLES
+                + " variables, minutes beyond 6), the positive adversary ADV, and D, C0, C1,\n"
+                + "      s, bs, deg with witnesses; the optimality gap sqrt(W+ W-)/ADV+- and the speed-up D/sqrt(W+ W-).\n"
+                + "      --bench times ADV+- for seeded random 5- and 6-variable functions, ADV and the classical\n"
+                + "      measures for 10 variables.\n";
+    }
+
+    static int run(List<String> args, PrintStream out, PrintStream err) {
+        boolean json = false;
+        boolean bench = false;
+        long seed = 1;
+        String file = null;
+        for (int i = 0; i < args.size(); i++) {
+            String a = args.get(i);
+            if (a.equals("--json")) {
+                json = true;
+            } else if (a.equals("--bench")) {
+                bench = true;
+            } else if (a.equals("--seed")) {
+                if (i + 1 >= args.size()) {
+                    throw new Main.UsageException("bounds: --seed needs a whole number");
+                }
+                try {
+                    seed = Long.parseLong(args.get(++i));
+                } catch (NumberFormatException e) {
+                    throw new Main.UsageException("bounds: --seed needs a whole number, not " + args.get(i));
+                }
+            } else if (a.startsWith("-")) {
+                throw new Main.UsageException("bounds: unknown option " + a);
+            } else if (file == null) {
+                file = a;
+            } else {
+                throw new Main.UsageException("bounds: one FILE at most (got " + file + " and " + a + ")");
+            }
+        }
+        if (bench) {
+            bench(seed, out);
+            return Main.OK;
+        }
+        if (file == null) {
+            throw new Main.UsageException("bounds: give a scenario FILE (usage: bounds FILE [--json])");
+        }
+        Scenario sc = ScenarioReader.read(Main.readScenarioText(file));
+        for (String w : sc.warnings()) {
+            err.println("spanwright: warning: " + w);
+        }
+        if (sc.variableCount() > GeneralAdversary.PAGE_MAX_VARIABLES
+                && sc.variableCount() <= GeneralAdversary.CLI_MAX_VARIABLES) {
+            err.println("spanwright: note: the general adversary SDP for " + sc.variableCount()
+                    + " variables may take minutes");
+        }
+        long start = System.nanoTime();
+        BoundsReport r;
+        try {
+            r = Bounds.compute(sc, Bounds.Limits.CLI);
+        } catch (Bounds.BoundViolation e) {
+            err.println("spanwright: BOUND VIOLATED (a bug in Spanwright, please report it): " + e.getMessage());
+            return BOUND_VIOLATED;
+        }
+        double seconds = (System.nanoTime() - start) / 1e9;
+        if (json) {
+            out.println(Json.writePretty(BoundsJson.report(r)).trim());
+        } else {
+            out.print(summary(r, seconds));
+        }
+        return Boolean.FALSE.equals(r.analysis().correct()) ? Main.WRONG_REDUCTION : Main.OK;
+    }
+
+    /** A seeded random function on the whole cube of n variables (balanced in expectation). */
+    static TargetFunction randomFunction(int n, long seed) {
+        SeededRandom r = new SeededRandom(seed);
+        long[] x = new long[1 << n];
+        boolean[] v = new boolean[x.length];
+        for (int k = 0; k < x.length; k++) {
+            x[k] = k;
+            v[k] = r.nextDouble() < 0.5;
+        }
+        return new TargetFunction(TargetFunction.names("x", n), x, v);
+    }
+
+    /** Wall-clock seconds of each computation on three seeded random functions (one core). */
+    private static void bench(long seed, PrintStream out) {
+        out.println("bounds benchmark (seeded random functions on the whole cube; one core; seconds per function)");
+        // warm up the JIT on a small case
+        GeneralAdversary.compute(randomFunction(4, seed));
+        for (int n : new int[] {5, 6}) {
+            for (int k = 0; k < 3; k++) {
+                TargetFunction f = randomFunction(n, seed + k);
+                long t = System.nanoTime();
+                GeneralAdversary g = GeneralAdversary.compute(f);
+                out.println("  ADV+-  n = " + n + "  seed " + (seed + k) + "  " + pad(NumberText.sig((System.nanoTime() - t) / 1e9, 3) + " s", 10)
+                        + "m = " + g.constraintCount() + ", " + g.iterations() + " iterations, ADV+- in ["
+                        + NumberText.sig(g.lower(), 9) + ", " + NumberText.sig(g.upper(), 9) + "]");
+            }
+        }
+        for (int k = 0; k < 3; k++) {
+            TargetFunction f = randomFunction(10, seed + k);
+            long t = System.nanoTime();
+            PositiveAdversary p = PositiveAdversary.compute(f);
+            double tp = (System.nanoTime() - t) / 1e9;
+            t = System.nanoTime();
+            ClassicalMeasures c = ClassicalMeasures.compute(f);
+            double tc = (System.nanoTime() - t) / 1e9;
+            out.println("  ADV    n = 10 seed " + (seed + k) + "  " + pad(NumberText.sig(tp, 3) + " s", 10) + "ADV in ["
+                    + NumberText.sig(p.lower(), 6) + ", " + NumberText.sig(p.upper(), 6) + "]");
+            out.println("  D..deg n = 10 seed " + (seed + k) + "  " + pad(NumberText.sig(tc, 3) + " s", 10) + "D = "
+                    + c.decisionTreeDepth() + ", C = " + c.c() + ", s = " + c.sensitivity() + ", bs = " + c.blockSensitivity()
+                    + ", deg = " + c.degree());
+        }
+    }
+
+    private static String pad(String s, int width) {
+        return Main.pad(s, width);
+    }
+
+    private static String line(String label, String text) {
+        return "  " + pad(label, 16) + text + "\n";
+    }
+
+    /** The human summary: short, aligned, pasteable into notes. */
+    static String summary(BoundsReport r, double seconds) {
+        Scenario sc = r.scenario();
+        StringBuilder sb = new StringBuilder();
+        sb.append(sc.title().isEmpty() ? "(untitled scenario)" : sc.title()).append('\n');
+        sb.append(line("function", sc.functionText()));
+        sb.append(line("domain", r.analysis().domainSize() + " inputs, " + sc.promise().describe(sc.variables())));
+        GeneralAdversary g = r.general();
+        if (g == null) {
+            sb.append(line("ADV+-", "not computed: " + r.reason("general")));
+        } else {
+            sb.append(line("ADV+-", NumberText.sig(g.lower(), 8) + "   certified in [" + NumberText.sig(g.lower(), 10)
+                    + ", " + NumberText.sig(g.upper(), 10) + "]; " + describe(g)));
+        }
+        PositiveAdversary p = r.positive();
+        if (p == null) {
+            sb.append(line("ADV", "not computed: " + r.reason("positive")));
+        } else {
+            sb.append(line("ADV", NumberText.sig(p.lower(), 8) + "   certified in [" + NumberText.sig(p.lower(), 10)
+                    + ", " + NumberText.sig(p.upper(), 10) + "]; minimax form"));
+        }
+        ClassicalMeasures c = r.classical();
+        if (c == null) {
+            sb.append(line("classical", "not computed: " + r.reason("classical")));
+        } else {
+            TargetFunction f = c.function();
+            sb.append(line("D", c.decisionTreeDepth() + "   optimal decision tree with " + c.decisionTree().size()
+                    + " nodes (--json prints it)"));
+            sb.append(line("C0 / C1 / C", c.c0() + " / " + c.c1() + " / " + c.c()
+                    + certificateText(c.zeroCertificate(), f) + certificateText(c.oneCertificate(), f)));
+            sb.append(line("s", c.sensitivity() + blocksText(c.sensitiveInput(), f)));
+            sb.append(line("bs", c.blockSensitivity() + blocksText(c.sensitiveBlocks(), f)));
+            if (c.hasDegree()) {
+                List<String> names = f.names(c.topMonomial().variables());
+                sb.append(line("deg", c.degree() + "   top monomial " + (names.isEmpty() ? "1" : String.join("·", names))
+                        + " with coefficient " + c.topMonomial().coefficient()));
+            } else {
+                sb.append(line("deg", "not computed: " + r.reason("deg")));
+            }
+        }
+        sb.append(line("sqrt(W+ W-)", Double.isNaN(r.complexity()) ? "undefined: " + r.reason("complexity")
+                : NumberText.sig(r.complexity(), 10) + "   (this graph, current weights)"));
+        sb.append(line("optimality gap", Double.isNaN(r.optimalityGap()) ? "not computed: " + r.reason("optimalityGap")
+                : NumberText.sig(r.optimalityGap(), 6) + "   sqrt(W+ W-) / ADV+- (1 = optimal graph)"));
+        sb.append(line("speed-up", Double.isNaN(r.speedup()) ? "not computed: " + r.reason("speedup")
+                : NumberText.sig(r.speedup(), 6) + "   D / sqrt(W+ W-) over the best deterministic algorithm"));
+        sb.append("  computed in ").append(NumberText.sig(seconds, 3)).append(" s\n");
+        sb.append("  note: ").append(ResultJson.CONVENTION).append(".\n");
+        sb.append("  caution: ").append(Bounds.CAUTION).append(".\n");
+        return sb.toString();
+    }
+
+    private static String describe(GeneralAdversary g) {
+        String method = g.method() == GeneralAdversary.Method.INTERIOR_POINT ? "interior point"
+                : g.method() == GeneralAdversary.Method.SPLITTING ? "splitting method" : "no SDP needed";
+        String status = g.status() == GeneralAdversary.Status.CONSTANT ? "f is constant"
+                : g.status() == GeneralAdversary.Status.CONVERGED ? "converged" : "stopped early (interval still valid)";
+        return method + ", " + g.iterations() + " iterations, " + status;
+    }
+
+    private static String certificateText(Certificate c, TargetFunction f) {
+        if (c == null) {
+            return "";
+        }
+        List<String> fixed = new ArrayList<>();
+        for (int i = 0; i < f.variableCount(); i++) {
+            if ((c.fixed() & f.variableMask(i)) != 0) {
+                fixed.add(f.variables().get(i) + "=" + (f.bit(c.input(), i) ? 1 : 0));
+            }
+        }
+        return "   " + (c.value() ? "1" : "0") + "-certificate of " + f.format(c.input()) + ": "
+                + (fixed.isEmpty() ? "(none needed)" : String.join(" ", fixed));
+    }
+
+    private static String blocksText(SensitiveBlocks b, TargetFunction f) {
+        if (b.count() == 0) {
+            return "";
+        }
+        StringBuilder sb = new StringBuilder("   at ").append(f.format(b.input())).append(':');
+        for (long block : b.blocks()) {
+            sb.append(" {").append(String.join(", ", f.names(block))).append('}');
+        }
+        return sb.toString();
+    }
+}
