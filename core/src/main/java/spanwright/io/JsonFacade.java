@@ -328,6 +328,27 @@ public final class JsonFacade {
     }
 
     /**
+     * Simulates the span-program algorithm exactly on every input of the domain (the command-line
+     * {@code simulate --json} gives the same object). {@code optionsJson} may be null or
+     * {@code {"epsilon": 0.1, "alpha2": 2.5 | null, "input": "0110" | null}}: the error ε in (0, 1),
+     * the scale α² (default W₊) and a focused input whose whole spectrum is returned.
+     * Answer: {@code {"ok":true,"result":{"alpha2","epsilon","bits","queries","qubits",
+     * "repetitions","totalQueries","curves","textbook","inputs":[{"x","positive","phaseZeroWeight",
+     * "acceptance",…}],"focus",…}}} (keys in docs/simulation.md), or the error envelope (code
+     * {@code too-large-to-simulate} beyond the size guard, {@code option}/{@code input-string} at
+     * {@code $options.…}). Cost: |domain| dense decompositions of size |E|+1.
+     */
+    public static String simulate(String scenarioJson, String optionsJson) {
+        try {
+            Scenario sc = ScenarioReader.read(scenarioJson);
+            spanwright.quantum.SimulationOptions opt = SimulationJson.options(optionsJson, sc);
+            return ok("result", SimulationJson.result(spanwright.quantum.Simulation.run(sc, opt)));
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /**
      * Lower bounds and classical measures of the scenario's function on its domain, with the page's
      * size limits ({@link spanwright.bounds.Bounds.Limits#PAGE}). Answer: {@code {"ok":true,
      * "result":{...}}}, result being the object of {@code bounds --json} (keys in docs/bounds.md),
