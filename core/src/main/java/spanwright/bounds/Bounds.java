@@ -15,7 +15,8 @@ import spanwright.model.Scenario;
  * within the size limits of the caller, and compares them with the scenario's √(W₊W₋) from
  * {@link Analysis#run}:
  * <ul>
- *   <li>optimality gap = √(W₊W₋) / ADV± ≥ 1 for every graph deciding f (every st-connectivity
+ *   <li>optimality gap = √(W₊W₋) / ADV± ≥ 1 (with the best certified lower bound on ADV±, see
+ *       {@link #adversaryLower}) for every graph deciding f (every st-connectivity
  *       graph is a span program, whose witness size is at least ADV±: Reichardt, SODA 2011,
  *       arXiv:1005.1601); a certified ADV± above √(W₊W₋) by more than {@link #GAP_TOLERANCE} is
  *       a bug and raises {@link BoundViolation};</li>
@@ -145,7 +146,7 @@ public final class Bounds {
             } else if (!(general.lower() > 0)) {
                 reasons.put("optimalityGap", "ADV± is 0 (the function is constant on the domain)");
             } else {
-                gap = optimalityGap(complexity, general.lower());
+                gap = optimalityGap(complexity, adversaryLower(general, positive));
             }
             if (classical == null) {
                 reasons.put("speedup", "D was not computed: " + reasons.get("classical"));
@@ -157,6 +158,14 @@ public final class Bounds {
             checkOrder(positive.lower(), general.upper());
         }
         return new BoundsReport(scenario, limits, f, analysis, general, positive, classical, gap, speedup, reasons);
+    }
+
+    /**
+     * The best certified lower bound on ADV±: the SDP's primal value, or ADV's certified lower
+     * bound when that is larger (ADV ≤ ADV±; the splitting method can stop with a looser primal).
+     */
+    static double adversaryLower(GeneralAdversary general, PositiveAdversary positive) {
+        return positive == null ? general.lower() : Math.max(general.lower(), positive.lower());
     }
 
     /**

@@ -34,7 +34,7 @@ public final class BoundsReport {
         this.classical = classical;
         this.optimalityGap = optimalityGap;
         this.speedup = speedup;
-        this.reasons = Map.copyOf(reasons);
+        this.reasons = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(reasons));
     }
 
     public Scenario scenario() {
@@ -74,7 +74,7 @@ public final class BoundsReport {
         return classical;
     }
 
-    /** √(W₊W₋) / ADV± (with the certified lower value of ADV±), or NaN. */
+    /** √(W₊W₋) / ADV± (with the best certified lower bound on ADV±), or NaN. */
     public double optimalityGap() {
         return optimalityGap;
     }

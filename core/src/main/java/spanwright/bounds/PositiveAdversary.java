@@ -24,7 +24,9 @@ import java.util.Arrays;
  * <p><b>Certificates.</b> The upper bound is 1/min_pairs Σ√(p_x p_y) of the final p, evaluated
  * exactly. The lower bound is the spectral adversary ‖Γ‖ / max_i ‖Γ∘Δ_i‖ (Barnum, Saks &amp;
  * Szegedy, CCC 2003) of the non-negative matrix Γ_xy = w_xy / √(α_x α_y) built from the smoothed
- * minimum's pair weights w (the Lagrange multipliers) and α_x = Σ_y w_xy g_xy; ‖Γ‖ is bounded
+ * minimum's pair weights w (the Lagrange multipliers) and α_x = Σ_y w_xy g_xy, or of the
+ * unit-weight sensitivity graph (pairs at Hamming distance 1, where every Γ∘Δ_i is a matching),
+ * whichever is larger; ‖Γ‖ is bounded
  * below by a Rayleigh quotient and each ‖Γ∘Δ_i‖ above by the Collatz–Wielandt bound
  * max_x (Av)_x / v_x for a positive vector v improved by power iteration — both valid for any
  * v, so the interval always contains ADV(f).
