@@ -42,7 +42,7 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
  * <p>Cost: one {@link InteriorPointSdp} run, ≈ 20–40 iterations of O(m³ + Σ_blocks ·) each. Size
  * limits: {@link #PAGE_MAX_VARIABLES} in the page, {@link #CLI_MAX_VARIABLES} in the CLI.
  */
-public final class GeneralAdversary {
+public final class GeneralAdversary implements CertifiedBound {
     /** Largest number of variables the page solves the SDP for. */
     public static final int PAGE_MAX_VARIABLES = 6;
     /** Largest number of variables the command-line tool solves the SDP for. */
@@ -442,23 +442,21 @@ public final class GeneralAdversary {
 
     // ------------------------------------------------------------------ results
 
+    @Override
     public TargetFunction function() {
         return function;
     }
 
     /** Certified lower bound on ADV± (the primal value, from the adversary matrix). */
+    @Override
     public double lower() {
         return lower;
     }
 
     /** Certified upper bound on ADV± (the dual value, from the witness matrices). */
+    @Override
     public double upper() {
         return upper;
-    }
-
-    /** upper − lower (≥ 0 up to rounding). */
-    public double gap() {
-        return upper - lower;
     }
 
     public Status status() {

@@ -34,7 +34,7 @@ import java.util.Arrays;
  * <p>Written here because neither dependency has a nonlinear optimiser. Immutable result; the
  * computation is single-threaded and allocates its work arrays once.
  */
-public final class PositiveAdversary {
+public final class PositiveAdversary implements CertifiedBound {
     /** Largest number of variables handled (2^10 inputs, up to 2^18 pairs). */
     public static final int MAX_VARIABLES = 10;
     /** Work budget: pair-variable operations spent in the optimisation (about a second). */
@@ -216,23 +216,21 @@ public final class PositiveAdversary {
 
     // ------------------------------------------------------------------ results
 
+    @Override
     public TargetFunction function() {
         return function;
     }
 
     /** Certified lower bound on ADV(f) (spectral adversary of the dual weights). */
+    @Override
     public double lower() {
         return lower;
     }
 
     /** Certified upper bound on ADV(f) (minimax value of the final distributions). */
+    @Override
     public double upper() {
         return upper;
-    }
-
-    /** upper − lower. */
-    public double gap() {
-        return upper - lower;
     }
 
     /** p_x, the distribution on the variables of the input with ordinal k (a copy). */
