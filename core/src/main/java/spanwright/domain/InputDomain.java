@@ -11,6 +11,12 @@ import spanwright.model.Scenario;
  * filtering the cube (O(2^n) promise evaluations) or from the explicit list. Immutable.
  */
 public final class InputDomain {
+    /**
+     * Most variables for a domain that is the whole cube or filtered from it: the members are
+     * listed as int masks, and 2^30 inputs is already far beyond what can be analysed.
+     */
+    public static final int MAX_FILTERED_VARIABLES = 30;
+
     private final int variableCount;
     private final long size;
     private final int[] small;
@@ -31,6 +37,12 @@ public final class InputDomain {
     public static InputDomain of(Scenario scenario) {
         int n = scenario.variableCount();
         Promise p = scenario.promise();
+        if (p.kind() != Promise.Kind.INPUTS && n > MAX_FILTERED_VARIABLES) {
+            // scenarios built in code can exceed the reader's limit; the cube cannot be listed
+            throw new ScenarioException("too-many-variables", "$.variables", n + " variables: the domain of "
+                    + (p.kind() == Promise.Kind.NONE ? "all inputs" : "this promise") + " cannot be enumerated "
+                    + "(at most " + MAX_FILTERED_VARIABLES + " variables; list the inputs explicitly instead)");
+        }
         switch (p.kind()) {
             case NONE:
                 return new InputDomain(n, 1L << n, null, null);

@@ -43,7 +43,10 @@ public final class ScenarioReader {
         return fromJson(Json.parse(jsonText));
     }
 
-    /** Validates a parsed JSON document. */
+    /**
+     * Validates a parsed JSON document ({@link Json} values; documents built in code may also use
+     * Integer or Long for numbers).
+     */
     public static Scenario fromJson(Object doc) {
         Map<String, Object> root = object(doc, "$");
         Object format = root.get("format");
@@ -59,7 +62,7 @@ public final class ScenarioReader {
         if (version == null) {
             throw new ScenarioException("version", "$.version", "missing \"version\" (expected 1)");
         }
-        if (!(version instanceof Double) || ((Double) version).doubleValue() != VERSION) {
+        if (!(version instanceof Number) || ((Number) version).doubleValue() != VERSION) {
             throw new ScenarioException("version", "$.version", "unsupported version " + show(version)
                     + "; this program reads version " + VERSION);
         }
@@ -194,10 +197,10 @@ public final class ScenarioReader {
             double w = 1.0;
             Object wt = em.get("weight");
             if (wt != null && wt != Json.NULL) {
-                if (!(wt instanceof Double)) {
+                if (!(wt instanceof Number)) {
                     throw new ScenarioException("weight", p + ".weight", "weight must be a number, got " + show(wt));
                 }
-                w = (Double) wt;
+                w = ((Number) wt).doubleValue();
                 if (!(w > 0) || Double.isInfinite(w)) {
                     throw new ScenarioException("weight", p + ".weight", "weight must be a finite number > 0, got "
                             + (Double.isInfinite(w) ? (w > 0 ? "" : "-") + "infinity (a number too large)"
@@ -286,10 +289,10 @@ public final class ScenarioReader {
             for (int i = 0; i < w.length; i++) {
                 String p = "$.promise.weights[" + i + "]";
                 Object o = wl.get(i);
-                if (!(o instanceof Double) || (Double) o != Math.rint((Double) o)) {
+                if (!(o instanceof Number) || ((Number) o).doubleValue() != Math.rint(((Number) o).doubleValue())) {
                     throw new ScenarioException("promise", p, "a Hamming weight is a whole number, got " + show(o));
                 }
-                double d = (Double) o;
+                double d = ((Number) o).doubleValue();
                 if (d < 0 || d > n) {
                     throw new ScenarioException("promise", p, "Hamming weight " + (long) d
                             + " is outside 0.." + n);
@@ -392,10 +395,10 @@ public final class ScenarioReader {
         if (o == null || o == Json.NULL) {
             return Double.NaN;
         }
-        if (!(o instanceof Double)) {
+        if (!(o instanceof Number)) {
             throw new ScenarioException("type", path, "expected a number, got " + show(o));
         }
-        return (Double) o;
+        return ((Number) o).doubleValue();
     }
 
     static String show(Object o) {
