@@ -3,6 +3,7 @@ package spanwright.bounds;
 import java.util.Map;
 import spanwright.analysis.AnalysisResult;
 import spanwright.model.Scenario;
+import spanwright.optimize.OptimizationResult;
 
 /**
  * What {@link Bounds#compute} found for a scenario: the analysis (√(W₊W₋)), the adversary bounds,
@@ -21,6 +22,8 @@ public final class BoundsReport {
     private final double optimalityGap;
     private final double speedup;
     private final Map<String, String> reasons;
+    private OptimizationResult optimised;
+    private double optimisedGap = Double.NaN;
 
     BoundsReport(Scenario scenario, Bounds.Limits limits, TargetFunction function, AnalysisResult analysis,
             GeneralAdversary general, PositiveAdversary positive, ClassicalMeasures classical, double optimalityGap,
@@ -52,6 +55,27 @@ public final class BoundsReport {
 
     public AnalysisResult analysis() {
         return analysis;
+    }
+
+    /** Set once by {@link Bounds#compute}. */
+    void setOptimised(OptimizationResult result, double gap) {
+        this.optimised = result;
+        this.optimisedGap = gap;
+    }
+
+    /** The weight optimiser's result on this graph, or null when not run (see reasons). */
+    public OptimizationResult optimised() {
+        return optimised;
+    }
+
+    /** √(W₊W₋) with optimised weights, or NaN. */
+    public double optimisedComplexity() {
+        return optimised == null ? Double.NaN : optimised.complexity;
+    }
+
+    /** √(W₊W₋) with optimised weights / ADV±, or NaN. */
+    public double optimisedGap() {
+        return optimisedGap;
     }
 
     /** √(W₊W₋) of the scenario's weights (NaN when a side is empty). */

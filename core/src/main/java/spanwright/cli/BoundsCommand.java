@@ -197,6 +197,11 @@ final class BoundsCommand {
                 : NumberText.sig(r.complexity(), 10) + "   (this graph, current weights)"));
         sb.append(line("optimality gap", Double.isNaN(r.optimalityGap()) ? "not computed: " + r.reason("optimalityGap")
                 : NumberText.sig(r.optimalityGap(), 6) + "   sqrt(W+ W-) / ADV+- (1 = optimal graph)"));
+        if (r.optimised() != null) {
+            sb.append(line("optimised", NumberText.sig(r.optimisedComplexity(), 10) + "   sqrt(W+ W-) of this graph with "
+                    + "optimised weights (" + r.optimised().status.name().toLowerCase().replace('_', ' ') + ")"
+                    + (Double.isNaN(r.optimisedGap()) ? "" : ", gap " + NumberText.sig(r.optimisedGap(), 6))));
+        }
         sb.append(line("speed-up", Double.isNaN(r.speedup()) ? "not computed: " + r.reason("speedup")
                 : NumberText.sig(r.speedup(), 6) + "   D / sqrt(W+ W-) over the best deterministic algorithm"));
         sb.append("  computed in ").append(NumberText.sig(seconds, 3)).append(" s\n");

@@ -42,8 +42,12 @@ public final class BoundsJson {
         m.put("complexity", ResultJson.num(r.complexity()));
         m.put("optimalityGap", ResultJson.num(r.optimalityGap()));
         m.put("speedup", ResultJson.num(r.speedup()));
+        m.put("optimisedComplexity", ResultJson.num(r.optimisedComplexity()));
+        m.put("optimisedGap", ResultJson.num(r.optimisedGap()));
+        m.put("optimiserStatus", r.optimised() == null ? Json.NULL
+                : r.optimised().status.name().toLowerCase().replace('_', '-'));
         Map<String, Object> reasons = new LinkedHashMap<>();
-        for (String k : new String[] {"complexity", "optimalityGap", "speedup"}) {
+        for (String k : new String[] {"complexity", "optimalityGap", "speedup", "optimisedComplexity"}) {
             if (r.reason(k) != null) {
                 reasons.put(k, r.reason(k));
             }
