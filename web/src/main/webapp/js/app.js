@@ -13,7 +13,6 @@
   const ENGINE_KEY = "spanwright.engine";
   const HISTORY_LIMIT = 300;
   const ROW_HEIGHT = 26;
-  const IDENT = /^[A-Za-z_][A-Za-z0-9_]*$/;
 
   /* A small scenario of our own, used only when the gallery is empty. */
   const FALLBACK = {
@@ -42,6 +41,9 @@
     firstRenderMs: null,
     detailSerial: 0
   };
+
+  /* Listeners of the panels in other files (tuning.js, builder.js, bounds.js, runpanel.js). */
+  const hooks = { analysis: [], scenario: [], engine: [], sheet: [], focus: [], mode: [] };
 
   // ------------------------------------------------------------------ messages
 
@@ -80,22 +82,17 @@
     for (let i = 1; ; i++) { if (!used.has(prefix + i)) return prefix + i; }
   }
 
-  /** Replaces an identifier in an expression, not where it is a function name (followed by "("). */
-  function renameInExpression(expr, from, to) {
-    if (typeof expr !== "string") return expr;
-    const re = new RegExp("(^|[^A-Za-z0-9_])" + from.replace(/[$]/g, "\\$&") + "(?![A-Za-z0-9_]|\\s*\\()", "g");
-    return expr.replace(re, function (m, pre) { return pre + to; });
-  }
-
   // ------------------------------------------------------------------ history
 
-  /** Applies an edit: mutate(copy) changes a copy of the scenario; the old text goes on the undo stack. */
+  /** Applies an edit: mutate(copy) changes a copy of the scenario, or returns a whole new scenario
+   *  object to put in its place; the old text goes on the undo stack. */
   function commit(mutate, opts) {
     opts = opts || {};
     const before = text();
-    const next = clone(state.scenario);
+    let next = clone(state.scenario);
     const r = mutate(next);
     if (r === false) return false;
+    if (r && typeof r === "object") next = normalise(r);
     const after = JSON.stringify(next);
     if (after === before) return false;
     state.undo.push(before);
@@ -133,6 +130,7 @@
     renderSelection();
     updateUndoButtons();
     if (opts.analyse) scheduleAnalysis();
+    hooks.scenario.forEach(function (h) { h(); });
   }
 
   function updateUndoButtons() {
@@ -209,18 +207,32 @@
     box.appendChild(add);
   }
 
+  /**
+   * Renames a variable everywhere (variable list, edge conditions, function, promise). The engine
+   * does it token by token (JsonFacade.renameVariable), so the page needs no expression logic. The
+   * edit is applied only if the scenario is still the one that was sent.
+   */
   function renameVariable(i, to) {
     const from = state.scenario.variables[i];
     if (to === from) return;
-    if (!IDENT.test(to)) { notify("A variable name is letters, digits and _ and starts with a letter or _: '" + to + "' is not one.", "error"); renderVariables(); return; }
-    if (state.scenario.variables.indexOf(to) >= 0) { notify("There is already a variable named '" + to + "'.", "error"); renderVariables(); return; }
-    commit(function (sc) {
-      sc.variables[i] = to;
-      sc.graph.edges.forEach(function (e) {
-        if (e.when === from) e.when = to; else if (e.when === "!" + from) e.when = "!" + to;
-      });
-      sc.function = renameInExpression(sc.function, from, to);
-      if (typeof sc.promise === "string") sc.promise = renameInExpression(sc.promise, from, to);
+    const before = text();
+    state.bridge.call("renameVariable", before, from, to).then(function (r) {
+      if (!r.ok) {
+        const err = r.error || {};
+        notify("Could not rename variable '" + from + "' to '" + to + "': " + (err.message || "the engine refused") +
+          (err.path ? " (at " + err.path + ")" : "") + ". Nothing was changed.", "error");
+        renderVariables();
+        return;
+      }
+      if (text() !== before) {
+        notify("The scenario changed while '" + from + "' was being renamed, so the rename was not applied. Try again.", "error");
+        renderVariables();
+        return;
+      }
+      let next;
+      try { next = JSON.parse(r.scenario); } catch (e) { notify("The engine's renamed scenario was unreadable; nothing was changed.", "error"); renderVariables(); return; }
+      commit(function () { return next; });
+      document.body.dataset.renamed = to;
     });
   }
 
@@ -479,7 +491,7 @@
       try { answer = JSON.parse(m.text); } catch (e) { answer = { ok: false, error: { message: "unreadable answer", path: "$" } }; }
       if (m.type === "analysis-error" || !answer.ok) { showAnalysisError(answer.error || {}); return; }
       $("timing").dataset.retried = m.retried ? "true" : "false";
-      showAnalysis(answer.result, m.inputs, m.ms, m.total, performance.now() - started);
+      showAnalysis(answer.result, m.inputs, m.ms, m.total, performance.now() - started, scenarioText);
     });
     state.job = id;
   }
@@ -515,13 +527,14 @@
     el.title = v === null || v === undefined ? "no inputs of this kind" : String(v);
   }
 
-  function showAnalysis(result, inputs, ms, total, wallMs) {
+  function showAnalysis(result, inputs, ms, total, wallMs, scenarioText) {
     $("error-box").hidden = true;
     document.body.classList.remove("stale");
     const previousX = state.focus >= 0 && state.analysis ? state.analysis.codes[state.focus] : null;
     const n = inputs ? inputs.codes.length : 0;
     state.analysis = { result: result, codes: inputs ? inputs.codes : new Int32Array(0), values: inputs ? inputs.values : new Float64Array(0),
-      flags: inputs ? inputs.flags : new Uint8Array(0), n: n, nvars: (result.variables || state.scenario.variables).length };
+      flags: inputs ? inputs.flags : new Uint8Array(0), n: n, nvars: (result.variables || state.scenario.variables).length,
+      text: scenarioText };
     const pos = result.positive || {}, neg = result.negative || {};
     setFigure("sum-wplus", pos.count ? pos.maxResistance : null);
     setFigure("sum-wminus", neg.count ? neg.maxCapacitance : null);
@@ -571,6 +584,7 @@
     state.serial++;
     document.body.dataset.analysis = "ready";
     document.body.dataset.analysisSerial = String(state.serial);
+    hooks.analysis.forEach(function (h) { h(state.analysis); });
     if (state.firstRenderMs === null) {
       state.firstRenderMs = performance.now();
       document.body.dataset.firstRenderMs = String(Math.round(state.firstRenderMs));
@@ -757,6 +771,7 @@
       const info = view.showFocus(d, state.display);
       renderLegend(info);
       document.body.dataset.focusDrawn = x;
+      hooks.focus.forEach(function (h) { h(x); });
     });
   }
 
@@ -800,6 +815,11 @@
 
   // ------------------------------------------------------------------ histogram
 
+  /**
+   * The histogram the engine computed (result.histogram: for each side min, max and equal-width
+   * bin counts over [min, max]); the page only draws it. The counts are also put on the canvas
+   * (data-positive, data-negative) and in its text alternative.
+   */
   function drawHistogram() {
     const cv = $("histogram");
     const ctx = cv.getContext("2d");
@@ -807,27 +827,29 @@
     const W = cv.width, H = cv.height;
     ctx.clearRect(0, 0, W, H);
     ctx.font = "12px system-ui, sans-serif";
-    if (!a || !a.n) return;
-    const BINS = 20;
-    const halves = [{ bit: 1, label: "R (positive)", x0: 0, hatch: false }, { bit: 0, label: "C (negative)", x0: W / 2 + 6, hatch: true }];
+    if (!a) return;
+    const hist = a.result.histogram || {};
+    const halves = [{ key: "positive", label: "R (positive)", x0: 0, hatch: false }, { key: "negative", label: "C (negative)", x0: W / 2 + 6, hatch: true }];
+    const alt = [];
     halves.forEach(function (h) {
-      let max = 0;
-      for (let i = 0; i < a.n; i++) if (((a.flags[i] & 1) === h.bit) && isFinite(a.values[i])) max = Math.max(max, a.values[i]);
-      const bins = new Array(BINS).fill(0);
-      let cnt = 0;
-      for (let i = 0; i < a.n; i++) {
-        if ((a.flags[i] & 1) !== h.bit || !isFinite(a.values[i])) continue;
-        const b = max > 0 ? Math.min(BINS - 1, Math.floor(a.values[i] / max * BINS)) : 0;
-        bins[b]++; cnt++;
-      }
-      const top = Math.max(1, Math.max.apply(null, bins));
-      const w = (W / 2 - 12) / BINS;
+      const side = hist[h.key] || {};
+      const counts = Array.isArray(side.counts) ? side.counts.map(Number) : [];
+      cv.dataset[h.key] = JSON.stringify(counts);
+      const total = counts.reduce(function (p, q) { return p + q; }, 0);
+      const span = W / 2 - 12;
       const base = H - 22;
       ctx.fillStyle = "#111";
-      ctx.fillText(h.label + (cnt ? ", 0 … " + F.num(max) : ": none"), h.x0, 12);
-      for (let b = 0; b < BINS; b++) {
-        const bh = (base - 20) * bins[b] / top;
-        const x = h.x0 + b * w;
+      const range = counts.length ? (side.min === side.max ? "all " + F.num(side.min) : F.num(side.min) + " … " + F.num(side.max)) : "";
+      ctx.fillText(h.label + (counts.length ? ", " + range : ": none"), h.x0, 12);
+      alt.push(h.label + ": " + (counts.length ? F.count(total) + " inputs in " + counts.length + " bin" + (counts.length === 1 ? "" : "s") + " over " + range + " (" + counts.join(", ") + ")" : "none"));
+      const top = Math.max(1, Math.max.apply(null, counts.concat([0])));
+      // One bin (every value equal) is drawn as one narrow bar in the middle.
+      const bins = counts.length;
+      const w = bins > 1 ? span / bins : span / 20;
+      const xStart = bins > 1 ? h.x0 : h.x0 + (span - w) / 2;
+      for (let b = 0; b < bins; b++) {
+        const bh = (base - 20) * counts[b] / top;
+        const x = xStart + b * w;
         ctx.fillStyle = h.hatch ? "#b8620a" : "#1f5fa8";
         ctx.fillRect(x + 1, base - bh, w - 2, bh);
         if (h.hatch && bh > 0) {
@@ -836,11 +858,19 @@
         }
       }
       ctx.strokeStyle = "#111";
-      ctx.beginPath(); ctx.moveTo(h.x0, base + 0.5); ctx.lineTo(h.x0 + W / 2 - 12, base + 0.5); ctx.stroke();
+      ctx.beginPath(); ctx.moveTo(h.x0, base + 0.5); ctx.lineTo(h.x0 + span, base + 0.5); ctx.stroke();
       ctx.fillStyle = "#111";
-      ctx.fillText("0", h.x0, H - 6);
-      if (cnt) { const m = F.num(max); ctx.fillText(m, h.x0 + W / 2 - 12 - ctx.measureText(m).width, H - 6); }
+      if (bins > 1) {
+        ctx.fillText(F.num(side.min), h.x0, H - 6);
+        const m = F.num(side.max);
+        ctx.fillText(m, h.x0 + span - ctx.measureText(m).width, H - 6);
+      } else if (bins === 1) {
+        const m = F.num(side.min);
+        ctx.fillText(m, h.x0 + (span - ctx.measureText(m).width) / 2, H - 6);
+      }
     });
+    cv.textContent = alt.join("; ");
+    cv.setAttribute("aria-label", "Histogram of witness sizes. " + alt.join("; "));
   }
 
   // ------------------------------------------------------------------ forms → scenario
@@ -991,7 +1021,7 @@
     document.body.dataset.mode = on ? "present" : "edit";
     view.setScale(on ? 1.5 : 1);
     $("histogram").hidden = on;
-    setTimeout(function () { view.cy.resize(); view.fit(); reapplyFocus(); }, 50);
+    setTimeout(function () { view.cy.resize(); view.fit(); reapplyFocus(); view.placeLabels(); hooks.mode.forEach(function (h) { h(on); }); }, 50);
   }
   $("present").addEventListener("click", function () { setPresenting(true); });
 
@@ -1003,13 +1033,14 @@
   document.addEventListener("keydown", function (ev) {
     const key = ev.key;
     if ((ev.ctrlKey || ev.metaKey) && (key === "z" || key === "Z")) {
-      if (typing(ev)) return;
+      if (typing(ev) || document.querySelector("dialog[open]")) return;
       ev.preventDefault();
       if (ev.shiftKey) redo(); else undo();
       return;
     }
     if ((ev.ctrlKey || ev.metaKey) && (key === "y" || key === "Y") && !typing(ev)) { ev.preventDefault(); redo(); return; }
     if (typing(ev) || ev.ctrlKey || ev.metaKey || ev.altKey) return;
+    if (document.querySelector("dialog[open]")) return;   // a dialog has the keyboard
     const presenting = document.body.dataset.mode === "present";
     switch (key) {
       case "ArrowDown": case "ArrowRight": ev.preventDefault(); step(1); break;
@@ -1024,6 +1055,11 @@
         reapplyFocus();
         break;
       case "m": case "M": setPresenting(!presenting); break;
+      case "s": case "S": showSheet("summary"); break;
+      case "w": case "W": showSheet("weights"); break;
+      case "b": case "B": showSheet("bounds"); break;
+      case "r": case "R": showSheet("run"); break;
+      case "n": case "N": if (!presenting && window.SwBuilder) { ev.preventDefault(); window.SwBuilder.open(); } break;
       case "Escape": if (presenting) setPresenting(false); $("keys-help").hidden = true; break;
       case "?": $("keys-help").hidden = !$("keys-help").hidden; break;
       case "Delete": case "Backspace": if (!presenting && state.selection) { ev.preventDefault(); deleteElement(state.selection); } break;
@@ -1049,9 +1085,12 @@
       state.engine = m.engine;
       const badge = $("engine-badge");
       badge.dataset.engine = m.engine;
-      badge.textContent = "engine: " + engineLabel(m.engine);
+      badge.textContent = "engine: " + (m.engine === "wasm" ? "wasm-GC" : "JS");
+      badge.setAttribute("aria-label", "engine: " + engineLabel(m.engine));
       badge.title = (m.note ? m.note + " " : "") + "Started in " + Math.round(m.loadMs) + " ms.";
       if (m.note && preferred === "wasm") notify(m.note, "info");
+      document.body.dataset.engineFunctions = (m.functions || []).join(" ");
+      hooks.engine.forEach(function (h) { h(m); });
       if (then) then();
     }, function (message) {
       notify(message, "error");
@@ -1090,6 +1129,58 @@
       openFragment(true).then(function (opened) { if (!opened) runAnalysis(); });
     });
   }
+
+  // ------------------------------------------------------------------ result sheets (tabs)
+
+  let currentSheet = "summary";
+  function showSheet(name) {
+    if (!$("sheet-" + name)) return;
+    currentSheet = name;
+    document.querySelectorAll(".sheet-tabs [role=tab]").forEach(function (t) {
+      const on = t.dataset.sheet === name;
+      t.setAttribute("aria-selected", on ? "true" : "false");
+      t.tabIndex = on ? 0 : -1;
+    });
+    document.querySelectorAll("#summary-panel .sheet").forEach(function (p) { p.hidden = p.id !== "sheet-" + name; });
+    document.body.dataset.sheet = name;
+    hooks.sheet.forEach(function (h) { h(name); });
+  }
+  document.querySelectorAll(".sheet-tabs [role=tab]").forEach(function (t) {
+    t.addEventListener("click", function () { showSheet(t.dataset.sheet); });
+    t.addEventListener("keydown", function (ev) {
+      if (ev.key !== "ArrowLeft" && ev.key !== "ArrowRight") return;
+      ev.preventDefault();
+      ev.stopPropagation();
+      const tabs = Array.prototype.slice.call(document.querySelectorAll(".sheet-tabs [role=tab]"));
+      const k = (tabs.indexOf(t) + (ev.key === "ArrowRight" ? 1 : tabs.length - 1)) % tabs.length;
+      tabs[k].focus();
+      showSheet(tabs[k].dataset.sheet);
+    });
+  });
+
+  /**
+   * What the panels in the other page scripts may use: the scenario text, edits (undoable), the
+   * engine bridge and task workers, messages. They hold no scenario state of their own.
+   */
+  self.SwApp = {
+    text: text,
+    scenario: function () { return state.scenario; },
+    commitScenario: function (obj) { return commit(function () { return obj; }); },
+    loadText: loadText,
+    notify: notify,
+    bridge: function () { return state.bridge; },
+    newTask: function () { return new self.SpanwrightEngineTask(state.engine || preferredEngine()); },
+    has: function (fn) { return !!(state.bridge && state.bridge.ready && state.bridge.has(fn)); },
+    engineReady: function () { return !!(state.bridge && state.bridge.ready); },
+    analysis: function () { return state.analysis; },
+    focusX: function () { return state.focus >= 0 && state.analysis ? xOf(state.analysis.codes[state.focus]) : null; },
+    focusDetail: function () { return state.focusDetail; },
+    gallery: function () { return gallery.slice(); },
+    sheet: function () { return currentSheet; },
+    showSheet: showSheet,
+    presenting: function () { return document.body.dataset.mode === "present"; },
+    on: function (what, fn) { hooks[what].push(fn); }
+  };
 
   // A read-only window for tests and for the curious: the current scenario text and analysis.
   window.SpanwrightView = view;

@@ -90,8 +90,9 @@
       { selector: "node.pending", style: { "border-style": "dotted", "border-width": 5 * k } },
       { selector: "edge", style: {
         "curve-style": "bezier", "control-point-step-size": 36 * k,
-        "width": 2.5 * k, "line-color": "data(color)", "label": "data(label)",
-        "font-size": 12 * k, "color": "#111", "text-background-color": "#fff",
+        "width": 2.5 * k, "line-color": "data(color)", "label": "data(shown)",
+        "font-size": "data(fs)", "color": "#111", "text-background-color": "#fff",
+        "text-wrap": "wrap", "text-max-width": 2000, "line-height": 1.1,
         "text-background-opacity": 0.85, "text-background-padding": 2 * k,
         "target-arrow-color": "data(color)", "source-arrow-color": "data(color)",
         "arrow-scale": 1.1 * k
@@ -107,6 +108,76 @@
   GraphView.prototype.setScale = function (k) {
     this.scale = k;
     this.cy.style(this.style());
+    this.placeLabels();
+  };
+
+  const BODY_BOX = { includeNodes: true, includeEdges: false, includeLabels: false, includeOverlays: false,
+    includeUnderlays: false, includeOutlines: false, useCache: false };
+  const NODE_LABEL_BOX = { includeNodes: false, includeEdges: false, includeLabels: true, includeMainLabels: true,
+    includeOverlays: false, includeUnderlays: false, includeOutlines: false, useCache: false };
+  const EDGE_LABEL_BOX = { includeNodes: false, includeEdges: false, includeLabels: true, includeMainLabels: true,
+    includeSourceLabels: false, includeTargetLabels: false, includeOverlays: false, includeUnderlays: false,
+    includeOutlines: false, useCache: false };
+  const LABEL_GAP = 2;   // model units kept free around a label
+
+  function overlap(a, b, gap) {
+    const w = Math.min(a.x2, b.x2) - Math.max(a.x1, b.x1) + gap;
+    const h = Math.min(a.y2, b.y2) - Math.max(a.y1, b.y1) + gap;
+    return w > 0 && h > 0 ? w * h : 0;
+  }
+
+  /**
+   * Places edge labels clear of the vertices. Each edge label (its parts joined by " · ") is tried
+   * on one line, on two lines (the last part below), with one part per line, at full size and then
+   * smaller (down to 60 %). A label may never cover a vertex; it may touch a vertex label or an
+   * edge label placed before it by at most 3 % of its area (label boxes include their padding).
+   * The first try that fits is kept, or else the one that overlaps least. Measured with the
+   * drawing's own label boxes, in model coordinates, so the result does not depend on zoom.
+   * Skipped above 400 edges, where the labels are unreadable anyway.
+   */
+  GraphView.prototype.placeLabels = function () {
+    const cy = this.cy;
+    const k = this.scale || 1;
+    const full = 12 * k;
+    const edges = cy.edges();
+    if (edges.length > 400) {
+      cy.batch(function () { edges.forEach(function (e) { e.data({ shown: e.data("label"), fs: full }); }); });
+      return;
+    }
+    const hard = [], soft = [];
+    cy.nodes().forEach(function (n) {
+      hard.push(n.boundingBox(BODY_BOX));
+      if (n.data("label")) { const b = n.boundingBox(NODE_LABEL_BOX); if (b.w > 0 && b.h > 0) soft.push(b); }
+    });
+    let crowded = 0;
+    edges.forEach(function (e) {
+      const label = String(e.data("label") || "");
+      const parts = label.split(" · ");
+      const shapes = [label];
+      if (parts.length > 2) shapes.push(parts.slice(0, -1).join(" · ") + "\n" + parts[parts.length - 1]);
+      if (parts.length > 1) shapes.push(parts.join("\n"));
+      let best = null;
+      const sizes = [1, 0.85, 0.72, 0.6];
+      for (let i = 0; i < sizes.length && !(best && best.fits); i++) {
+        for (let j = 0; j < shapes.length; j++) {
+          const t = { shown: shapes[j], fs: full * sizes[i] };
+          e.data(t);
+          const box = e.boundingBox(EDGE_LABEL_BOX);
+          let h = 0, so = 0;
+          for (let q = 0; q < hard.length; q++) h += overlap(box, hard[q], LABEL_GAP);
+          for (let q = 0; q < soft.length; q++) so += overlap(box, soft[q], 0);
+          const fits = h === 0 && so <= 0.03 * box.w * box.h;
+          const cost = 10 * h + so;
+          if (!best || (fits && !best.fits) || (!best.fits && cost < best.cost)) best = { t: t, box: box, cost: cost, fits: fits };
+          if (fits) break;
+        }
+      }
+      if (!best) return;
+      e.data(best.t);
+      if (!best.fits) crowded++;
+      soft.push(best.box);
+    });
+    cy.container().dataset.crowdedLabels = String(crowded);
   };
 
   function vertexLabel(id, s, t) {
@@ -133,8 +204,10 @@
       els.push({ group: "nodes", data: { id: v.id, label: vertexLabel(v.id, g.s, g.t) },
         position: hasPos ? { x: v.x, y: v.y } : { x: 80 * i, y: 0 }, classes: cls });
     });
+    const self_ = this;
     g.edges.forEach(function (e) {
-      els.push({ group: "edges", data: { id: e.id, source: e.u, target: e.v, label: edgeLabel(e), color: edgeColor(String(e.when)), base: edgeLabel(e) } });
+      els.push({ group: "edges", data: { id: e.id, source: e.u, target: e.v, label: edgeLabel(e), color: edgeColor(String(e.when)), base: edgeLabel(e),
+        shown: edgeLabel(e), fs: 12 * (self_.scale || 1) } });
     });
     const selected = cy.$(":selected").map(function (x) { return x.id(); });
     cy.batch(function () {
@@ -145,6 +218,7 @@
       selected.forEach(function (id) { const el = cy.getElementById(id); if (el.length) el.select(); });
     });
     this.focus = null;
+    if (!missing) this.placeLabels();
     return missing;
   };
 
@@ -156,6 +230,7 @@
     const out = {};
     cy.nodes().forEach(function (n) { const p = n.position(); out[n.id()] = { x: Math.round(p.x), y: Math.round(p.y) }; });
     cy.fit(undefined, 30);
+    this.placeLabels();
     return out;
   };
 
@@ -172,6 +247,7 @@
       cy.nodes().removeClass("ramp");
     });
     this.restoreVertexLabels();
+    this.placeLabels();
   };
 
   GraphView.prototype.restoreVertexLabels = function () {
@@ -233,6 +309,7 @@
         }
       });
     });
+    this.placeLabels();
     return { useRamp: useRamp, pmin: pmin, pmax: pmax, positive: positive };
   };
 

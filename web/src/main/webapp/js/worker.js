@@ -6,11 +6,13 @@
  *
  * Messages, page -> worker:
  *   {type:"init", engine:"auto"|"wasm"|"js"}
- *   {type:"call", id, fn, args}                   quick calls: validate, detail, encodeShare, decodeShare
+ *   {type:"call", id, fn, args}                   one engine call (validate, detail, renameVariable, build,
+ *                                                 optimize, …); long ones run in a task worker of their own
  *   {type:"analyze", id, scenario, withInputs}    enumeration in steps, with progress
  *   {type:"cancel", id}
  * worker -> page:
- *   {type:"ready", engine, note, loadMs} | {type:"fatal", message}
+ *   {type:"ready", engine, note, loadMs, functions} | {type:"fatal", message}
+ *   (functions: the exported engine functions this build has; the page hides what is missing)
  *   {type:"reply", id, text}
  *   {type:"progress", id, processed, total}
  *   {type:"analysis", id, text, inputs, ms, total} | {type:"analysis-error", id, text} | {type:"cancelled", id}
@@ -19,10 +21,11 @@
   "use strict";
 
   const EXPORTED = ["validate", "analyze", "startAnalysis", "stepAnalysis", "finishAnalysis",
-    "cancelAnalysis", "detail", "encodeShare", "decodeShare"];
+    "cancelAnalysis", "detail", "encodeShare", "decodeShare", "renameVariable", "optimize", "build",
+    "bounds", "simulate"];
 
   /* Runs inside the worker. Written as a function so that its text can go into the Blob. */
-  function workerMain() {
+  function workerMain(exported) {
     let engine = null;
     let engineName = "";
     let running = null;          // {id, job, cancelled}
@@ -58,7 +61,8 @@
         engine = self.__swJsEngine;
         engineName = "js";
       }
-      post({ type: "ready", engine: engineName, note: note, loadMs: performance.now() - t0 });
+      const functions = exported.filter(function (n) { return typeof engine[n] === "function"; });
+      post({ type: "ready", engine: engineName, note: note, loadMs: performance.now() - t0, functions: functions });
       pump();
     }
 
@@ -66,6 +70,7 @@
       if (msg.type === "call") {
         let text;
         try {
+          if (typeof engine[msg.fn] !== "function") throw new Error("this build of the engine has no function " + msg.fn);
           text = engine[msg.fn].apply(null, msg.args);
         } catch (e) {
           text = errorText("engine-failure", "The engine failed in " + msg.fn + ": " + (e && e.message ? e.message : e));
@@ -183,12 +188,13 @@
     if (!S.js) throw new Error("The page is incomplete: the engine script engine/engine-js.js did not load.");
     const parts = [];
     parts.push("self.__swJsEngine = (function(){\n", S.js, "\n;return {");
-    parts.push(EXPORTED.map(function (n) { return n + ":" + n; }).join(","));
+    // A function this build of the core does not export is simply absent (typeof never throws).
+    parts.push(EXPORTED.map(function (n) { return n + ":(typeof " + n + "===\"function\"?" + n + ":undefined)"; }).join(","));
     parts.push("};})();\n");
     if (S.wasmRuntime && S.wasmBase64) {
       parts.push(S.wasmRuntime, "\n;self.__swWasmBase64 = \"", S.wasmBase64, "\";\n");
     }
-    parts.push("(", workerMain.toString(), ")();\n");
+    parts.push("(", workerMain.toString(), ")(", JSON.stringify(EXPORTED), ");\n");
     workerSource = URL.createObjectURL(new Blob(parts, { type: "text/javascript" }));
     return workerSource;
   }
@@ -201,16 +207,21 @@
     this.pending = new Map();
     this.jobs = new Map();
     this.engine = "";
+    this.functions = [];
     this.ready = false;
     const worker = new Worker(buildWorkerSource());
     this.worker = worker;
     const self_ = this;
     worker.onerror = function (e) {
-      onFatal("The engine could not start: " + (e.message || "worker error"));
+      // Answer every waiting call, so no promise hangs on a dead worker.
+      const why = "The engine stopped: " + (e.message || "worker error");
+      self_.pending.forEach(function (p) { p(JSON.stringify({ ok: false, error: { code: "engine-failure", message: why, path: "$" } })); });
+      self_.pending.clear();
+      onFatal(self_.ready ? why : "The engine could not start: " + (e.message || "worker error"));
     };
     worker.onmessage = function (ev) {
       const m = ev.data;
-      if (m.type === "ready") { self_.ready = true; self_.engine = m.engine; onReady(m); return; }
+      if (m.type === "ready") { self_.ready = true; self_.engine = m.engine; self_.functions = m.functions || []; onReady(m); return; }
       if (m.type === "reply") { const p = self_.pending.get(m.id); self_.pending.delete(m.id); if (p) p(m.text); return; }
       const job = self_.jobs.get(m.id);
       if (!job) return;
@@ -242,6 +253,74 @@
     this.worker.postMessage({ type: "cancel", id: id });
   };
   EngineBridge.prototype.terminate = function () { this.worker.terminate(); };
+  EngineBridge.prototype.has = function (fn) { return this.functions.indexOf(fn) >= 0; };
+
+  /**
+   * A worker of its own for one kind of long engine call (optimise, bounds, simulate, build
+   * preview). Such a call is one blocking call inside the engine, so cancelling it means
+   * terminating this worker; the main worker (analysis, focus) and the user's work are untouched.
+   * The worker is started on first use and again after a cancel.
+   */
+  function EngineTask(preferred) {
+    this.preferred = preferred;
+    this.bridge = null;
+    this.serial = 0;
+    this.busy = false;
+    this.cancelled = null;
+  }
+  EngineTask.prototype.start = function () {
+    if (this.bridge) return this.bridge;
+    const self_ = this;
+    this.bridge = new EngineBridge(this.preferred, function () { /* ready */ }, function () {
+      // A dead worker is replaced on the next call.
+      if (self_.bridge) { try { self_.bridge.terminate(); } catch (e) { /* gone */ } }
+      self_.bridge = null;
+    });
+    return this.bridge;
+  };
+  /** Runs fn(args…) in this task's worker. Resolves to the engine's answer, or to
+   *  {ok:false, cancelled:true, …} when cancel() ended it first. If the WebAssembly-GC engine
+   *  fails inside the call (a trap, not an error answer of the engine), the same call is run
+   *  once more in a JavaScript-engine worker; such an answer carries fallback: the failure. */
+  EngineTask.prototype.run = function (fn) {
+    const args = Array.prototype.slice.call(arguments, 1);
+    const bridge = this.start();
+    const serial = ++this.serial;
+    const self_ = this;
+    this.busy = true;
+    return new Promise(function (resolve) {
+      self_.cancelled = function () {
+        resolve({ ok: false, cancelled: true, error: { code: "cancelled", message: "cancelled", path: "$" } });
+      };
+      const done = function (v) {
+        if (serial !== self_.serial) return;   // superseded or cancelled
+        self_.busy = false;
+        self_.cancelled = null;
+        resolve(v);
+      };
+      bridge.call.apply(bridge, [fn].concat(args)).then(function (v) {
+        if (serial !== self_.serial) return;
+        const failed = v && !v.ok && v.error && v.error.code === "engine-failure";
+        if (!failed || bridge.engine !== "wasm") { done(v); return; }
+        if (!self_.js) self_.js = new EngineBridge("js", function () { /* ready */ }, function () { self_.js = null; });
+        self_.js.call.apply(self_.js, [fn].concat(args)).then(function (w) {
+          if (w && typeof w === "object") w.fallback = "the WebAssembly-GC engine failed (" + v.error.message + "), so the JavaScript engine computed this";
+          done(w);
+        });
+      });
+    });
+  };
+  /** Ends the running call (if any) by terminating the worker. */
+  EngineTask.prototype.cancel = function () {
+    this.serial++;
+    this.busy = false;
+    if (this.bridge) { this.bridge.terminate(); this.bridge = null; }
+    if (this.js) { this.js.terminate(); this.js = null; }
+    const c = this.cancelled;
+    this.cancelled = null;
+    if (c) c();
+  };
 
   self.SpanwrightEngineBridge = EngineBridge;
+  self.SpanwrightEngineTask = EngineTask;
 })();

@@ -48,6 +48,31 @@ public final class Exports {
     }
 
     @JSExport
+    public static String renameVariable(String scenarioJson, String from, String to) {
+        return JsonFacade.renameVariable(scenarioJson, from, to);
+    }
+
+    @JSExport
+    public static String optimize(String scenarioJson, String optionsJson) {
+        return JsonFacade.optimize(scenarioJson, optionsJson);
+    }
+
+    @JSExport
+    public static String build(String requestJson) {
+        return JsonFacade.build(requestJson);
+    }
+
+    @JSExport
+    public static String bounds(String scenarioJson) {
+        return JsonFacade.bounds(scenarioJson);
+    }
+
+    @JSExport
+    public static String simulate(String scenarioJson, String optionsJson) {
+        return JsonFacade.simulate(scenarioJson, optionsJson);
+    }
+
+    @JSExport
     public static String encodeShare(String scenarioJson) {
         return JsonFacade.encodeShare(scenarioJson);
     }

@@ -12,9 +12,8 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.Paths;
 import java.time.Duration;
+import java.util.List;
 import java.util.Map;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
@@ -30,25 +29,11 @@ import spanwright.io.JsonFacade;
  * tool's {@code analyze --json} prints — so page and CLI are checked to agree ("independent
  * computation": the same Java code on the JVM versus its TeaVM translations in the browser).
  */
-class WorkbenchIT {
+class WorkbenchIT extends PageTestBase {
     private static final Duration WAIT = Duration.ofSeconds(60);
     /** JVM doubles versus TeaVM JavaScript/wasm doubles: same IEEE operations, printed and re-read;
      *  1e-12 relative allows only for last-digit printing differences (common practice, no source). */
     private static final double TOL = 1e-12;
-
-    private static PageDriver page;
-
-    @BeforeAll
-    static void start() throws IOException {
-        page = new PageDriver(1280, 900);
-    }
-
-    @AfterAll
-    static void stop() {
-        if (page != null) {
-            page.close();
-        }
-    }
 
     @BeforeEach
     void clean() {
@@ -289,6 +274,108 @@ class WorkbenchIT {
         assertTrue(message.contains(file.getFileName().toString()) && message.contains("line 3"), message);
         assertEquals(work, page.js("return window.Spanwright.scenarioText();"));
         Files.deleteIfExists(file);
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void histogramCountsAreTheEnginesHistogram() throws IOException {
+        for (int g : new int[] {-1, 1, 2}) {
+            if (g < 0) {
+                page.openFresh(null);
+            } else {
+                int serial = page.serial();
+                new Select(page.$("gallery")).selectByIndex(g);
+                page.waitForAnalysis(serial, WAIT);
+            }
+            String shown = (String) page.js("return window.Spanwright.scenarioText();");
+            // Source: JsonFacade.analyze on the JVM for the same text, its "histogram".
+            Map<String, Object> hist = (Map<String, Object>) jvmResult(shown).get("histogram");
+            for (String side : new String[] {"positive", "negative"}) {
+                List<Object> expected = (List<Object>) ((Map<String, Object>) hist.get(side)).get("counts");
+                List<Object> drawn = (List<Object>) Json.parse((String) page.js("return document.getElementById('histogram').dataset." + side + ";"));
+                assertEquals(expected.size(), drawn.size(), side + " bins, gallery " + g);
+                for (int i = 0; i < expected.size(); i++) {
+                    assertEquals(((Number) expected.get(i)).longValue(), ((Number) drawn.get(i)).longValue(), side + " bin " + i + ", gallery " + g);
+                }
+            }
+        }
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void renamingAVariableGoesThroughTheEngineAndRoundTrips() {
+        page.openFresh(null);
+        String original = (String) page.js("return window.Spanwright.scenarioText();");
+        Map<String, Object> numbers = jvmResult(original);
+        page.js("document.querySelectorAll('.editors details').forEach(function(d){d.open=true;});");
+        int index = ((List<Object>) ((Map<String, Object>) Json.parse(original)).get("variables")).indexOf("p");
+        assertTrue(index >= 0, "the default scenario has a variable p");
+
+        // Source: JsonFacade.renameVariable on the JVM, same text.
+        rename(index, "pump_on");
+        String renamed = (String) page.js("return window.Spanwright.scenarioText();");
+        Map<String, Object> expected = (Map<String, Object>) Json.parse(JsonFacade.renameVariable(original, "p", "pump_on"));
+        assertEquals(Boolean.TRUE, expected.get("ok"), () -> "JVM rename failed: " + expected);
+        assertEquals(Json.parse((String) expected.get("scenario")), Json.parse(renamed), "page text = engine's renamed text");
+        assertTrue(renamed.contains("pump_on & q"), renamed);
+        page.waitForAnalysis(0, WAIT);
+        assertPageMatches(numbers, "after renaming (a rename changes no number)");
+
+        rename(index, "p");
+        String back = (String) page.js("return window.Spanwright.scenarioText();");
+        Map<String, Object> expectedBack = (Map<String, Object>) Json.parse(JsonFacade.renameVariable(renamed, "pump_on", "p"));
+        assertEquals(Json.parse((String) expectedBack.get("scenario")), Json.parse(back), "second rename = engine's");
+        assertEquals(Json.parse(original), Json.parse(back), "renaming there and back gives the original");
+
+        // A name the engine refuses: a message, and nothing changes.
+        WebElement chip = page.driver.findElement(By.cssSelector("[data-var-index='" + index + "']"));
+        chip.sendKeys(Keys.chord(Keys.CONTROL, "a"), "2bad", Keys.TAB);
+        page.waitFor("refusal shown", WAIT, () -> page.$("notice").isDisplayed() && page.$("notice-text").getText().contains("2bad"));
+        assertTrue(page.$("notice-text").getText().contains("Nothing was changed"), page.$("notice-text").getText());
+        assertEquals(back, page.js("return window.Spanwright.scenarioText();"));
+    }
+
+    private void rename(int index, String to) {
+        String before = (String) page.js("return window.Spanwright.scenarioText();");
+        WebElement chip = page.driver.findElement(By.cssSelector("[data-var-index='" + index + "']"));
+        chip.sendKeys(Keys.chord(Keys.CONTROL, "a"), to, Keys.TAB);
+        page.waitFor("rename to " + to + " applied", WAIT, () -> !before.equals(page.js("return window.Spanwright.scenarioText();")));
+    }
+
+    /** Geometry check of the drawing itself (no computed value): in presentation mode at
+     *  1280×720, on both worst inputs of every gallery scenario, no edge label box meets a vertex. */
+    @Test
+    void edgeLabelsStayClearOfVerticesInPresentationMode() {
+        page.driver.manage().window().setSize(new org.openqa.selenium.Dimension(1280, 720));
+        try {
+            page.openFresh(null);
+            int frames = ((Number) page.js("return window.outerHeight - window.innerHeight;")).intValue();
+            page.driver.manage().window().setSize(new org.openqa.selenium.Dimension(1280, 720 + frames));
+            int scenarios = ((Number) page.js("return document.getElementById('gallery').options.length - 1;")).intValue();
+            page.driver.findElement(By.tagName("body")).sendKeys("m");
+            page.waitFor("presentation mode", WAIT, () -> "present".equals(page.js("return document.body.dataset.mode;")));
+            for (int g = 1; g <= scenarios; g++) {
+                int serial = page.serial();
+                page.js("var s = document.getElementById('gallery'); s.value = String(arguments[0]); s.dispatchEvent(new Event('change'));", g - 1);
+                page.waitForAnalysis(serial, WAIT);
+                for (String key : new String[] {"1", "0"}) {
+                    page.js("document.body.dataset.focusDrawn = '';");
+                    page.driver.findElement(By.tagName("body")).sendKeys(key);
+                    page.waitFor("focus drawn", WAIT, () -> !"".equals(page.js("return document.body.dataset.focusDrawn || '';")));
+                    Object clashes = page.js(
+                            "var cy = window.SpanwrightView.cy, out = [];"
+                            + "var lb = {includeNodes:false, includeEdges:false, includeLabels:true, includeMainLabels:true, includeSourceLabels:false, includeTargetLabels:false, includeOverlays:false, includeUnderlays:false, useCache:false};"
+                            + "var nb = {includeNodes:true, includeEdges:false, includeLabels:false, includeOverlays:false, includeUnderlays:false, useCache:false};"
+                            + "cy.edges().forEach(function(e){ var a = e.boundingBox(lb); if (!(a.w > 0)) return;"
+                            + "  cy.nodes().forEach(function(n){ var b = n.boundingBox(nb);"
+                            + "    if (a.x1 < b.x2 && b.x1 < a.x2 && a.y1 < b.y2 && b.y1 < a.y2) out.push(e.id() + ' (' + e.data('shown') + ') on ' + n.id()); }); });"
+                            + "return out.join('; ');");
+                    assertEquals("", clashes, "gallery scenario " + g + ", worst input key " + key);
+                }
+            }
+        } finally {
+            page.driver.manage().window().setSize(new org.openqa.selenium.Dimension(1280, 900));
+        }
     }
 
     @Test

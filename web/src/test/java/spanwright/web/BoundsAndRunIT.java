@@ -1,0 +1,141 @@
+package spanwright.web;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.time.Duration;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Test;
+import org.openqa.selenium.By;
+import spanwright.io.Json;
+import spanwright.io.JsonFacade;
+
+/**
+ * The "Bounds" and "Run" sheets in real Chromium from file://. Expected values come from the JVM:
+ * {@link JsonFacade#bounds} and {@link JsonFacade#simulate} on the same scenario text with the same
+ * options the page sent (the façade the command-line {@code bounds --json} and
+ * {@code simulate --json} print).
+ */
+class BoundsAndRunIT extends PageTestBase {
+    private static final Duration WAIT = Duration.ofSeconds(120);
+    /** Iterative solvers (the SDP for ADV±, eigendecompositions) on doubles: the JVM's and the
+     *  browser's elementary functions may differ in the last bit; 1e-8 relative allows for that
+     *  (common practice, no source). Whole numbers must agree exactly. */
+    private static final double TOL = 1e-8;
+
+
+    @BeforeEach
+    void clean() {
+        openClean();
+    }
+
+
+    private static void assertValue(Object expected, String shown, String what) {
+        if (expected == null || expected == Json.NULL) {
+            assertEquals("", shown, what + " is not computed");
+            return;
+        }
+        double e = ((Number) expected).doubleValue();
+        assertTrue(shown != null && !shown.isEmpty(), what + " shown");
+        assertEquals(e, Double.parseDouble(shown), TOL * Math.max(1, Math.abs(e)), what);
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void boundsSheetShowsTheJvmNumbers() {
+        String scenario = scenarioText();
+        page.$("tab-bounds").click();
+        page.waitFor("bounds computed", WAIT, () -> "ready".equals(page.js("return document.body.dataset.bounds;")));
+        Map<String, Object> answer = (Map<String, Object>) Json.parse(JsonFacade.bounds(scenario));
+        assertEquals(Boolean.TRUE, answer.get("ok"), () -> "JVM bounds failed: " + answer);
+        Map<String, Object> r = (Map<String, Object>) answer.get("result");
+        Map<String, Object> adv = (Map<String, Object>) r.get("adversary");
+        Map<String, Object> cl = (Map<String, Object>) r.get("classical");
+        // Source: JsonFacade.bounds on the JVM, same text.
+        // ADV± and ADV come from iterative solvers (an interior-point SDP; a work-budgeted
+        // minimax optimisation) whose iterates depend on the last bits of exp/log/sqrt, which
+        // differ between the JVM and the browser. Each side returns certified values, so the page's
+        // lower bound may differ from the JVM's by at most the JVM's own certified gap
+        // (upper − lower), or 1e-8 relative where that gap is smaller.
+        assertWithinGap(adv.get("general"), adv.get("generalDual"), adv.get("general"), page.$("bounds-general").getAttribute("data-value"), "adversary.general");
+        assertWithinGap(adv.get("general"), adv.get("generalDual"), adv.get("generalDual"), page.$("bounds-generalDual").getAttribute("data-value"), "adversary.generalDual");
+        assertWithinGap(adv.get("positive"), adv.get("positiveUpper"), adv.get("positive"), page.$("bounds-positive").getAttribute("data-value"), "adversary.positive");
+        for (String k : new String[] {"D", "C0", "C1", "C", "s", "bs", "deg"}) {
+            assertValue(cl.get(k), page.$("bounds-" + k).getAttribute("data-value"), "classical." + k);
+            Map<String, Object> reasons = (Map<String, Object>) cl.get("reasons");
+            if (cl.get(k) == Json.NULL) {
+                assertEquals(String.valueOf(reasons.get(k)), page.$("bounds-" + k).getAttribute("data-reason"), "reason for " + k);
+            }
+        }
+        assertValue(r.get("complexity"), page.$("bounds-complexity").getAttribute("data-value"), "complexity");
+        assertValue(r.get("speedup"), page.$("bounds-speedup").getAttribute("data-value"), "speedup");
+        double gapSlack = (num(adv.get("generalDual")) - num(adv.get("general"))) / num(adv.get("general"));
+        assertEquals(num(r.get("optimalityGap")), Double.parseDouble(page.$("bounds-optimalityGap").getAttribute("data-value")),
+                Math.max(TOL, 2 * gapSlack) * num(r.get("optimalityGap")), "optimalityGap (complexity / ADV±)");
+        assertTrue(page.driver.findElement(By.cssSelector("#sheet-bounds .caution")).isDisplayed(), "the caution is shown");
+        // The summary's bound and this sheet's agree (both are the engine's).
+        WorkbenchIT.assertClose(page.value("sum-bound"), Double.parseDouble(page.$("bounds-complexity").getAttribute("data-value")), "same bound");
+    }
+
+    static double num(Object o) {
+        return ((Number) o).doubleValue();
+    }
+
+    private static void assertWithinGap(Object lower, Object upper, Object expected, String shown, String what) {
+        if (expected == null || expected == Json.NULL) {
+            assertEquals("", shown, what + " is not computed");
+            return;
+        }
+        double e = num(expected);
+        double gap = upper == null || upper == Json.NULL ? 0 : Math.abs(num(upper) - num(lower));
+        assertTrue(shown != null && !shown.isEmpty(), what + " shown");
+        assertEquals(e, Double.parseDouble(shown), Math.max(TOL * Math.max(1, Math.abs(e)), gap), what);
+    }
+
+    /*
+     * Disabled until core stops using Math.ulp in spanwright.quantum.SpanProgramUnitary: TeaVM
+     * 0.16.0's Math.ulp(double) masks the exponent with 0xEFF0… instead of 0x7FF0…, so in both page
+     * engines ulp(1.0) is about 1e-93 instead of 2^-52; the rank tolerance becomes zero and the
+     * page's simulation disagrees with the JVM's (for the default scenario's positive input 001100
+     * the weight of |0⟩ on phase 0 is about 1e-31 in the page, 0.5 on the JVM). The test is the
+     * check that will pass once core uses a constant (2^-52).
+     */
+    @org.junit.jupiter.api.Disabled("waits for core: TeaVM 0.16.0 Math.ulp(double) is wrong; SpanProgramUnitary uses it")
+    @Test
+    @SuppressWarnings("unchecked")
+    void runSheetShowsTheJvmSimulationOfTheFocusedInput() {
+        String scenario = scenarioText();
+        for (String key : new String[] {"1", "0"}) {
+            page.js("document.body.dataset.focusDrawn = '';");
+            page.driver.findElement(By.tagName("body")).sendKeys(key);
+            page.waitFor("focus drawn", WAIT, () -> !"".equals(page.js("return document.body.dataset.focusDrawn || '';")));
+            String x = (String) page.js("return window.Spanwright.focus();");
+            page.$("tab-run").click();
+            page.waitFor("simulated for " + x, WAIT, () -> "ready".equals(page.js("return document.body.dataset.simulation;"))
+                    && x.equals(page.$("run-focus").getAttribute("data-x")));
+            String options = page.$("run-body").getAttribute("data-options");
+            assertTrue(options.contains(x), options);
+            Map<String, Object> answer = (Map<String, Object>) Json.parse(JsonFacade.simulate(scenario, options));
+            assertEquals(Boolean.TRUE, answer.get("ok"), () -> "JVM simulation failed: " + answer);
+            Map<String, Object> r = (Map<String, Object>) answer.get("result");
+            // Source: JsonFacade.simulate on the JVM, same text and options.
+            for (String k : new String[] {"bits", "queries", "qubits"}) {
+                assertValue(r.get(k), page.$("run-" + k).getAttribute("data-value"), k + " (focus " + x + ")");
+            }
+            Map<String, Object> focus = (Map<String, Object>) r.get("focus");
+            assertValue(focus.get("phaseZeroWeight"), page.$("run-focus").getAttribute("data-phase-zero-weight"), "weight of |0> on phase 0");
+            assertEquals(String.valueOf(((List<Object>) focus.get("spectrum")).size()), page.$("run-circle").getAttribute("data-phases"), "eigenphases drawn");
+            Map<String, Object> curves = (Map<String, Object>) r.get("curves");
+            List<Object> minPos = (List<Object>) curves.get("minPositive");
+            List<Object> shown = (List<Object>) Json.parse(page.$("run-curves").getAttribute("data-min-positive"));
+            assertEquals(minPos.size(), shown.size());
+            for (int i = 0; i < minPos.size(); i++) {
+                assertValue(minPos.get(i), shown.get(i) == Json.NULL ? "" : String.valueOf(shown.get(i)), "min positive acceptance at b = " + (i + 1));
+            }
+            assertTrue(page.driver.findElement(By.cssSelector("#sheet-run .caution")).isDisplayed(), "the caution is shown");
+            page.$("tab-summary").click();
+        }
+    }
+}
