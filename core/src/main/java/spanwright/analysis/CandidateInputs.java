@@ -2,13 +2,13 @@ package spanwright.analysis;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Random;
 import java.util.function.LongPredicate;
 import spanwright.domain.InputDomain;
 import spanwright.expr.Expr;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
 import spanwright.model.Scenario;
+import spanwright.model.SeededRandom;
 
 /**
  * The inputs that can be worst — the only ones whose witness sizes must be computed to know W₊
@@ -25,11 +25,14 @@ import spanwright.model.Scenario;
  * Symmetrically for variables that occur only negated; variables of both polarities give nothing;
  * variables that occur nowhere count as positive-only. An input with such a neighbour on its own
  * side is <i>dominated</i>; following neighbours ends at an undominated input of at least the
- * same value, so the maximum over the undominated inputs is W± exactly. For a monotone instance
- * (every condition a positive literal or 1) the undominated inputs are the minimal positive and
- * the maximal negative inputs. The worst positive input stays the first in input order (its
- * dominator x − e_i comes earlier); on the negative side the dominator x + e_i comes later, so an
- * earlier dominated input may tie with the reported one.
+ * same value, so the maximum over the undominated inputs is W± (exactly, up to the rounding of
+ * values that are equal in exact arithmetic). For a monotone instance (every condition a positive
+ * literal or 1) the undominated inputs are the minimal positive and the maximal negative inputs.
+ * The worst inputs reported are the first among the candidates. For a positive-only variable the
+ * dominator of a positive input (x − e_i) comes earlier in input order, so in a monotone instance
+ * the worst positive input is also the first of the whole domain; a dominator that comes later
+ * (x + e_i of a negative input, or any step of a negated-only variable) may hide an earlier input
+ * that ties with the reported one.
  *
  * <p><b>Symmetry.</b> With a {@link VariableSymmetry}, inputs of one orbit have equal witness
  * sizes and equal f, so one input per orbit (its first in input order) stands for all; the
@@ -224,7 +227,7 @@ public final class CandidateInputs {
             }
         }
         InputEvaluator ev = new InputEvaluator(sc);
-        Random rnd = new Random(seed);
+        SeededRandom rnd = new SeededRandom(seed);
         Expr f = sc.function();
         for (int[] g : gens) {
             for (int k = 0; k < SPOT_CHECKS; k++) {
@@ -336,7 +339,8 @@ public final class CandidateInputs {
                     + " single-variable neighbour on their own side in the edge-removing (positive) or edge-adding"
                     + " (negative) direction of a single-polarity variable can be worst");
         }
-        sb.append(" (Rayleigh monotonicity: removing a present edge never lowers R, adding one never lowers C).");
+        sb.append(" (Rayleigh monotonicity: removing a present edge never lowers R, adding one never lowers C);"
+                + " the worst inputs named are the first among those evaluated.");
         return sb.toString();
     }
 

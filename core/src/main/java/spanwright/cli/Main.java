@@ -59,6 +59,8 @@ public final class Main {
                     return Bench.run(rest, out, err);
                 case "build": return BuildCommand.run(rest, out, err);
                 case "bounds": return BoundsCommand.run(rest, out, err);
+                case "sweep": return SweepCommand.run(rest, out, err);
+                case "merge": return MergeCommand.run(rest, out, err);
                 case "simulate": return SimulateCommand.run(rest, out, err);
                 default:
                     err.println("spanwright: unknown command \"" + args[0] + "\"");
@@ -90,6 +92,7 @@ public final class Main {
                 + "      Inputs per second of the analysis on seeded random scenarios (one core).\n"
                 + BuildCommand.usage()
                 + BoundsCommand.usage()
+                + SweepCommand.usage()
                 + SimulateCommand.usage()
                 + "\n"
                 + "exit status: 0 ok, 1 reduction wrong on some input, 2 invalid scenario or usage\n";

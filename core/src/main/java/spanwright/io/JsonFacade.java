@@ -390,6 +390,102 @@ public final class JsonFacade {
         }
     }
 
+    // ------------------------------------------------------------------ family sweeps
+
+    /**
+     * Family sweeps (keys in docs/sweeps.md). A {@code family} spec is {@code {"family": NAME,
+     * …options}} for a built-in family ({@code or}, {@code and}, {@code parity}, {@code threshold}
+     * with {@code "k": "n / 2"}, {@code and-or-tree} with {@code "fanIn", "root"},
+     * {@code majority-tree}, {@code grid}, {@code path-one-missing}, {@code power} with
+     * {@code "scenario"}) or {@code {"family": "template", "template": {…family file…}}};
+     * {@code options} (optional) are the sweep options of {@code sweep --json} ({@code method},
+     * {@code optimizeIterations}, {@code optimizeSeconds}, {@code starts}, {@code seed},
+     * {@code bounds}, {@code boundsMaxVariables}, {@code maxInputs}; the page's default bound limit
+     * is 6 variables). Step by step, for a worker that reports progress, cancels and keeps
+     * finished rows itself:
+     * <ul>
+     *   <li>{@code sweepFamilies()} → {@code {"ok":true,"families":[{"family","title","parameter",
+     *       "meaning","defaultSizes","options"}],"sweepOptions":{…defaults…}}};</li>
+     *   <li>{@code sweepStart({"family":…,"size":12,"options":…})} builds the instance, checks the
+     *       reduction, optimises within the budget and computes the lower bounds (one call, the
+     *       slow part), → {@code {"ok":true,"job":ID,"status":"ok"|"skipped"|"error","total":N,
+     *       "metadata":{…},"timing":{…}}};</li>
+     *   <li>{@code sweepStep(ID, maxInputs)} → {@code {"ok":true,"done","processed","total"}};</li>
+     *   <li>{@code sweepFinish(ID)} → {@code {"ok":true,"row":{…}}} (a row of the result);</li>
+     *   <li>{@code sweepCancel(ID)} → {@code {"ok":true}};</li>
+     *   <li>{@code sweepReport({"family","sizes","options","rows":[…],"fitFrom","fitLast"})} →
+     *       {@code {"ok":true,"result":{…the result document…},"csv","latex","text"}} with the
+     *       fitted exponents over the tail (n ≥ fitFrom, then the last fitLast sizes).</li>
+     * </ul>
+     * And in one call, {@code sweep({"family","sizes":"2..8","options","fitFrom","fitLast"})} →
+     * as {@code sweepReport}. Single-threaded; bad input gives the error envelope with the path.
+     */
+    public static String sweepFamilies() {
+        try {
+            return okAll(SweepFacade.families());
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** See {@link #sweepFamilies()}. */
+    public static String sweepStart(String requestJson) {
+        try {
+            return okAll(SweepFacade.start(requestJson));
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** See {@link #sweepFamilies()}. */
+    public static String sweepStep(int job, int maxInputs) {
+        try {
+            return okAll(SweepFacade.step(job, maxInputs));
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** See {@link #sweepFamilies()}. */
+    public static String sweepFinish(int job) {
+        try {
+            return okAll(SweepFacade.finish(job));
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** See {@link #sweepFamilies()}. */
+    public static String sweepCancel(int job) {
+        SweepFacade.cancel(job);
+        return ok(null, null);
+    }
+
+    /** See {@link #sweepFamilies()}. */
+    public static String sweepReport(String requestJson) {
+        try {
+            return okAll(SweepFacade.report(requestJson));
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** See {@link #sweepFamilies()}. */
+    public static String sweep(String requestJson) {
+        try {
+            return okAll(SweepFacade.sweep(requestJson));
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    private static String okAll(Map<String, Object> body) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("ok", true);
+        m.putAll(body);
+        return Json.write(m);
+    }
+
     /** Helper for callers that hold a list of inputs. */
     static List<Object> list(Object... items) {
         List<Object> l = new ArrayList<>();
