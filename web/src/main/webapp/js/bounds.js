@@ -18,6 +18,8 @@
     ["top", "complexity", "this graph's bound √(W₊·W₋)", "current weights"],
     ["top", "optimalityGap", "optimality gap √(W₊·W₋) / ADV±", "≥ 1; 1 means this graph is optimal up to constants"],
     ["top", "speedup", "speed-up over classical D / √(W₊·W₋)", "constants not included"],
+    ["top", "optimisedComplexity", "bound with optimised weights", "the engine's weight optimiser, run for this comparison (a local optimum)"],
+    ["top", "optimisedGap", "optimality gap, optimised weights", "≥ 1"],
     ["adversary", "general", "ADV± (general adversary)", "lower bound for every graph deciding f; Θ(quantum query complexity)"],
     ["adversary", "generalDual", "ADV± upper value", "the dual value of the same semidefinite program"],
     ["adversary", "positive", "ADV (positive adversary)", "ADV ≤ ADV±"],

@@ -161,4 +161,23 @@ class BuilderIT extends PageTestBase {
         assertEquals("error", dialog("preview"));
         assertTrue(page.$("builder-error").getText().contains("$.size"), page.$("builder-error").getText());
     }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void aCompositionShowsTheEnginesAnswer() {
+        openDialog();
+        chooseKind("compose");
+        page.waitFor("composition previewed", WAIT, () -> dialog("request").contains("\"compose\"") && !"running".equals(dialog("preview")));
+        waitPreview();
+        // Source: JsonFacade.build on the JVM with the same request: built (same sizes) or refused (same message).
+        Map<String, Object> jvm = (Map<String, Object>) Json.parse(JsonFacade.build(dialog("request")));
+        if (Boolean.TRUE.equals(jvm.get("ok"))) {
+            assertEquals("built", dialog("preview"), page.$("builder-error").getText());
+            assertStatsShown(jvm);
+        } else {
+            assertEquals("error", dialog("preview"));
+            String message = String.valueOf(((Map<String, Object>) jvm.get("error")).get("message"));
+            assertTrue(page.$("builder-error").getText().contains(message), page.$("builder-error").getText());
+        }
+    }
 }
