@@ -26,13 +26,25 @@ final class SlurmScript {
         return "'" + s.replace("'", "'\\''") + "'";
     }
 
-    static String jar() {
+    /**
+     * How the job scripts start this tool: {@code java -jar spanwright.jar} when running from the
+     * jar, otherwise (classes in a directory, as in the tests) {@code java -cp CLASSPATH Main}.
+     */
+    static String command() {
+        Path p;
         try {
-            Path p = Path.of(SlurmScript.class.getProtectionDomain().getCodeSource().getLocation().toURI());
-            return p.toAbsolutePath().toString();
+            p = Path.of(SlurmScript.class.getProtectionDomain().getCodeSource().getLocation().toURI()).toAbsolutePath();
         } catch (URISyntaxException | SecurityException | NullPointerException e) {
             throw new Main.UsageException("sweep: cannot tell where spanwright.jar is (" + e + ")");
         }
+        if (Files.isRegularFile(p)) {
+            return quote(java()) + " -jar " + quote(p.toString());
+        }
+        StringBuilder cp = new StringBuilder();
+        for (String part : System.getProperty("java.class.path").split(java.io.File.pathSeparator)) {
+            cp.append(cp.length() > 0 ? java.io.File.pathSeparator : "").append(Path.of(part).toAbsolutePath());
+        }
+        return quote(java()) + " -cp " + quote(cp.toString()) + " spanwright.cli.Main";
     }
 
     static String java() {
@@ -41,8 +53,7 @@ final class SlurmScript {
 
     static int emit(SweepCommand.Args a, PrintStream out, PrintStream err) {
         Path dir = Path.of(a.slurmDir).toAbsolutePath();
-        String jarPath = jar();
-        String command = quote(java()) + " -jar " + quote(jarPath);
+        String command = command();
         List<String> rep = new ArrayList<>(a.repeat);
         StringBuilder sweepArgs = new StringBuilder();
         for (String r : rep) {
