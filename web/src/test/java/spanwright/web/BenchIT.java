@@ -130,6 +130,27 @@ class BenchIT {
         }
     }
 
+    /** The bounds and algorithm-run sheets on the default scenario: wall time of the engine call. */
+    @Test
+    void boundsAndSimulationInThePage() throws IOException {
+        try (PageDriver page = new PageDriver(1280, 900)) {
+            for (String engine : new String[] {"wasm", "js"}) {
+                page.driver.get(PageDriver.pageUrl(null));
+                page.js("localStorage.clear();");
+                page.driver.get("about:blank");
+                page.openFresh("?engine=" + engine);
+                page.$("tab-bounds").click();
+                page.waitFor("bounds computed", WAIT, () -> "ready".equals(page.js("return document.body.dataset.bounds;")));
+                record("engine=" + engine + " bounds of the default scenario (6 variables): " + page.$("bounds-body").getAttribute("data-ms") + " ms"
+                        + (page.$("bounds-fallback").isDisplayed() ? " (" + page.$("bounds-fallback").getText() + ")" : ""));
+                page.driver.findElement(org.openqa.selenium.By.tagName("body")).sendKeys("1");
+                page.$("tab-run").click();
+                page.waitFor("simulated", WAIT, () -> "ready".equals(page.js("return document.body.dataset.simulation;")));
+                record("engine=" + engine + " simulation of the default scenario (64 inputs, 6 edges): " + page.$("run-body").getAttribute("data-ms") + " ms");
+            }
+        }
+    }
+
     private static String optimise(PageDriver page) {
         page.$("tab-weights").click();
         page.waitFor("optimiser available", WAIT, () -> page.$("opt-run").isEnabled());
