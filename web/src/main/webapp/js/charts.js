@@ -121,8 +121,11 @@
     ctx.font = fs + "px system-ui, sans-serif";
     const cx = p.w / 2, cy = p.h / 2;
     const R = Math.min(p.w, p.h) / 2 - fs - 8;
-    ctx.strokeStyle = GRID; ctx.lineWidth = 1; ctx.setLineDash([]);
-    ctx.beginPath(); ctx.arc(cx, cy, R * 0.35, 0, 2 * Math.PI); ctx.stroke();
+    // Dashed rim: where a spoke of the largest weight ends; light axis through phase 0 and π.
+    ctx.strokeStyle = GRID; ctx.lineWidth = 1; ctx.setLineDash([4, 4]);
+    ctx.beginPath(); ctx.arc(cx, cy, R, 0, 2 * Math.PI); ctx.stroke();
+    ctx.setLineDash([]);
+    ctx.beginPath(); ctx.moveTo(cx - R, cy); ctx.lineTo(cx + R, cy); ctx.stroke();
     ctx.strokeStyle = INK;
     ctx.beginPath(); ctx.arc(cx, cy, R * 0.35, 0, 2 * Math.PI); ctx.stroke();
     ctx.fillStyle = INK;
