@@ -36,7 +36,9 @@ public final class PhaseEstimation {
         if (bits < 1 || bits > 62) {
             throw new IllegalArgumentException("bits must be in 1..62, got " + bits);
         }
-        double r = Math.IEEEremainder(phi, TWO_PI); // in [−π, π]
+        // reduce to [−π, π] by rounding to the nearest multiple of 2π (TeaVM 0.16's
+        // Math.IEEEremainder truncates instead, so it is not used)
+        double r = phi - TWO_PI * Math.rint(phi / TWO_PI);
         double m = (double) (1L << bits);
         double half = 0.5 * r;
         if (Math.abs(m * half) < 1e-4) {

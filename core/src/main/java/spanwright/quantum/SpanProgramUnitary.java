@@ -29,6 +29,9 @@ import spanwright.model.Scenario;
  * Immutable after construction.
  */
 public final class SpanProgramUnitary {
+    /** 2^-52, the spacing of doubles at 1 (Math.ulp(1.0) on a correct JVM). */
+    static final double MACHINE_EPSILON = 2.220446049250313e-16;
+
     private final Scenario scenario;
     private final double alpha2;
     private final int dim;
@@ -72,7 +75,8 @@ public final class SpanProgramUnitary {
         for (int k = 0; k < count; k++) {
             max = Math.max(max, sv[k]);
         }
-        double tol = Math.max(nv, dim) * Math.ulp(1.0) * max;
+        // 2^-52 written out: TeaVM 0.16's Math.ulp(double) returns a wrong value in the page
+        double tol = Math.max(nv, dim) * MACHINE_EPSILON * max;
         reflection = new DMatrixRMaj(dim, dim);
         for (int i = 0; i < dim; i++) {
             reflection.set(i, i, 1.0);

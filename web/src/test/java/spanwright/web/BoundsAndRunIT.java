@@ -98,14 +98,9 @@ class BoundsAndRunIT extends PageTestBase {
     }
 
     /*
-     * Disabled until core stops using Math.ulp in spanwright.quantum.SpanProgramUnitary: TeaVM
-     * 0.16.0's Math.ulp(double) masks the exponent with 0xEFF0… instead of 0x7FF0…, so in both page
-     * engines ulp(1.0) is about 1e-93 instead of 2^-52; the rank tolerance becomes zero and the
-     * page's simulation disagrees with the JVM's (for the default scenario's positive input 001100
-     * the weight of |0⟩ on phase 0 is about 1e-31 in the page, 0.5 on the JVM). The test is the
-     * check that will pass once core uses a constant (2^-52).
+     * Source: the JVM's JsonFacade.simulate for the same scenario. (Core writes 2^-52 out instead
+     * of calling Math.ulp, which TeaVM 0.16.0 computes wrongly.)
      */
-    @org.junit.jupiter.api.Disabled("waits for core: TeaVM 0.16.0 Math.ulp(double) is wrong; SpanProgramUnitary uses it")
     @Test
     @SuppressWarnings("unchecked")
     void runSheetShowsTheJvmSimulationOfTheFocusedInput() {
