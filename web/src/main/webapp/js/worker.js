@@ -22,7 +22,7 @@
 
   const EXPORTED = ["validate", "analyze", "startAnalysis", "stepAnalysis", "finishAnalysis",
     "cancelAnalysis", "detail", "encodeShare", "decodeShare", "renameVariable", "optimize", "build",
-    "bounds", "simulate"];
+    "bounds", "simulate", "sweepFamilies", "sweepStart", "sweepStep", "sweepFinish", "sweepCancel", "sweepReport"];
 
   /* Runs inside the worker. Written as a function so that its text can go into the Blob. */
   function workerMain(exported) {

@@ -81,4 +81,34 @@ public final class Exports {
     public static String decodeShare(String fragment) {
         return JsonFacade.decodeShare(fragment);
     }
+
+    @JSExport
+    public static String sweepFamilies() {
+        return JsonFacade.sweepFamilies();
+    }
+
+    @JSExport
+    public static String sweepStart(String requestJson) {
+        return JsonFacade.sweepStart(requestJson);
+    }
+
+    @JSExport
+    public static String sweepStep(int job, int maxInputs) {
+        return JsonFacade.sweepStep(job, maxInputs);
+    }
+
+    @JSExport
+    public static String sweepFinish(int job) {
+        return JsonFacade.sweepFinish(job);
+    }
+
+    @JSExport
+    public static String sweepCancel(int job) {
+        return JsonFacade.sweepCancel(job);
+    }
+
+    @JSExport
+    public static String sweepReport(String requestJson) {
+        return JsonFacade.sweepReport(requestJson);
+    }
 }
