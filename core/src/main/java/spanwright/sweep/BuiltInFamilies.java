@@ -300,6 +300,11 @@ public final class BuiltInFamilies {
         String a = majority(depth - 1, next);
         String b = majority(depth - 1, next);
         String c = majority(depth - 1, next);
+        if (depth > 1) {
+            a = "(" + a + ")";
+            b = "(" + b + ")";
+            c = "(" + c + ")";
+        }
         return "(" + a + " & " + b + ") | (" + a + " & " + c + ") | (" + b + " & " + c + ")";
     }
 

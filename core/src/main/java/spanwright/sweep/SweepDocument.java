@@ -119,7 +119,7 @@ public final class SweepDocument {
             if (c == null) {
                 throw new ScenarioException("part", path + ".coverage", "coverage is \"domain\" or \"candidates\"");
             }
-            long fp = Long.parseUnsignedLong(String.valueOf(m.get("fingerprint")), 16);
+            long fp = hex(String.valueOf(m.get("fingerprint")), path + ".fingerprint");
             List<Object> pr = list(m.get("positiveRecords"), path + ".positiveRecords");
             List<Object> nr = list(m.get("negativeRecords"), path + ".negativeRecords");
             long[] pin = new long[pr.size()];
@@ -154,6 +154,22 @@ public final class SweepDocument {
         } catch (IllegalArgumentException e) {
             throw new ScenarioException("part", path, "the summary is damaged: " + e.getMessage());
         }
+    }
+
+    /** An unsigned 64-bit hexadecimal number (written by Long.toHexString). */
+    private static long hex(String s, String path) {
+        if (s.isEmpty() || s.length() > 16) {
+            throw new ScenarioException("part", path, "expected a hexadecimal fingerprint");
+        }
+        long v = 0;
+        for (int i = 0; i < s.length(); i++) {
+            int d = Character.digit(s.charAt(i), 16);
+            if (d < 0) {
+                throw new ScenarioException("part", path, "expected a hexadecimal fingerprint");
+            }
+            v = (v << 4) | d;
+        }
+        return v;
     }
 
     private static void readRecords(List<Object> l, long[] in, double[] v, int n, String path) {

@@ -89,7 +89,8 @@ public final class SweepReport {
     private static List<Object> sizesOf(List<Map<String, Object>> rows) {
         List<Object> l = new ArrayList<>();
         for (Map<String, Object> r : rows) {
-            l.add(r.get("size"));
+            Object s = r.get("size");
+            l.add(s instanceof Number ? (Object) ((Number) s).intValue() : s);
         }
         return l;
     }

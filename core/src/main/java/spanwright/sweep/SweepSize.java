@@ -236,7 +236,7 @@ public final class SweepSize {
             red.put("counterexampleCount", candidates.counterexampleCount());
             red.put("counterexamples", inputStrings(candidates.counterexamples(), sc.variableCount()));
             metadata.put("reduction", red);
-            step("candidates", t0, (method == SweepOptions.Method.UNDOMINATED ? (long) domainSize : 40L * candidates.tested())
+            step("check", t0, (method == SweepOptions.Method.UNDOMINATED ? (long) domainSize : 40L * candidates.tested())
                     + 40L * candidates.size());
         } else {
             metadata.put("explanation", "Every one of the " + (long) domainSize + " inputs of the domain was evaluated"

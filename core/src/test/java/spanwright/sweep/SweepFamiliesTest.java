@@ -148,6 +148,51 @@ class SweepFamiliesTest {
         assertNotNull(big.get("reason"));
     }
 
+    /** Recursive majority of three on the bits of x, leaves in input order (an independent definition). */
+    static boolean recursiveMajority(long x, int n, int from, int width) {
+        if (width == 1) {
+            return ((x >>> (n - 1 - from)) & 1L) != 0;
+        }
+        int w = width / 3;
+        int votes = 0;
+        for (int i = 0; i < 3; i++) {
+            votes += recursiveMajority(x, n, from + i * w, w) ? 1 : 0;
+        }
+        return votes >= 2;
+    }
+
+    @Test
+    void theFamiliesComputeWhatTheyAreNamedFor() {
+        // Independent definitions, on every input: recursive majority (depth 2, 9 variables), the
+        // read-once tree with alternating gates (depth 3, fan-in 2, OR root), threshold (at least
+        // k = (n + 1) / 2 of n = 5), parity (n = 5). Common practice, no source.
+        spanwright.model.Scenario mt = family("majority-tree").instance(2).scenario();
+        spanwright.model.Scenario tree = family("and-or-tree").instance(3).scenario();
+        spanwright.model.Scenario thr = family("threshold").instance(5).scenario();
+        spanwright.model.Scenario par = family("parity").instance(5).scenario();
+        for (long x = 0; x < 512; x++) {
+            assertEquals(recursiveMajority(x, 9, 0, 9), mt.function().eval(x), "maj at " + x);
+        }
+        for (long x = 0; x < 256; x++) {
+            boolean[] b = new boolean[8];
+            for (int i = 0; i < 8; i++) {
+                b[i] = ((x >>> (7 - i)) & 1) != 0;
+            }
+            // OR root: (AND of two ORs) | (AND of two ORs)
+            boolean left = (b[0] || b[1]) && (b[2] || b[3]);
+            boolean right = (b[4] || b[5]) && (b[6] || b[7]);
+            assertEquals(left || right, tree.function().eval(x), "tree at " + x);
+        }
+        for (long x = 0; x < 32; x++) {
+            assertEquals(Long.bitCount(x) >= 3, thr.function().eval(x));
+            assertEquals(Long.bitCount(x) % 2 == 1, par.function().eval(x));
+        }
+        // and the graphs decide them (the reduction check, on every input)
+        for (spanwright.model.Scenario sc : List.of(mt, tree, thr, par)) {
+            assertEquals(Boolean.TRUE, spanwright.analysis.Analysis.run(sc).correct());
+        }
+    }
+
     @Test
     void everyBuiltInFamilyBuildsACorrectReduction() {
         SweepOptions o = SweepOptions.defaults().withBounds(false, 0).withOptimizeIterations(5);
