@@ -69,6 +69,9 @@ final class MergeCommand {
             doc = SweepDocument.merge(parts, files, fitFrom, fitLast, run);
         } catch (ScenarioException e) {
             throw new Main.UsageException("merge: " + e.path() + ": " + e.getMessage() + " [" + e.code() + "]");
+        } catch (ClassCastException | NullPointerException | IllegalArgumentException e) {
+            throw new Main.UsageException("merge: a part file is damaged or was edited by hand (a key is missing or of"
+                    + " the wrong type: " + e.getMessage() + "); write it again with sweep --shards N --shard I");
         }
         run.put("seconds", SweepCommand.elapsed(start));
         Object written = resultsOnly ? SweepDocument.resultsOnly(doc) : doc;

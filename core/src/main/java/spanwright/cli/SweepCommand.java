@@ -325,12 +325,17 @@ final class SweepCommand {
                     + (part ? ", sizes or shard" : "") + " differ); delete it or choose another -o");
         }
         Map<Integer, Map<String, Object>> kept = new TreeMap<>();
-        for (Object o : (List<Object>) d.get(part ? "units" : "rows")) {
-            Map<String, Object> row = (Map<String, Object>) o;
-            int size = ((Number) row.get("size")).intValue();
-            if (a.sizes.contains(size)) {
-                kept.put(size, row);
+        try {
+            for (Object o : (List<Object>) d.get(part ? "units" : "rows")) {
+                Map<String, Object> row = (Map<String, Object>) o;
+                int size = ((Number) row.get("size")).intValue();
+                if (a.sizes.contains(size)) {
+                    kept.put(size, row);
+                }
             }
+        } catch (ClassCastException | NullPointerException e) {
+            throw new Main.UsageException("sweep: " + a.output + " is damaged (its " + (part ? "units" : "rows")
+                    + " cannot be read); delete it or choose another -o");
         }
         if (!kept.isEmpty() && !a.quiet) {
             err.println("[sweep] resuming: " + kept.size() + " finished size(s) kept from " + a.output + ": " + kept.keySet());
