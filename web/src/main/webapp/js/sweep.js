@@ -316,7 +316,7 @@
   }
 
   function marker(kind, x, y, r) {
-    if (kind === "square") return svg("rect", { x: x - r, y: y - r, width: 2 * r, height: 2 * r, fill: "#ffffff", stroke: "#1b4f72", "stroke-width": 1.6 });
+    if (kind === "square") return svg("rect", { x: x - r - 1.5, y: y - r - 1.5, width: 2 * r + 3, height: 2 * r + 3, fill: "none", stroke: "#1b4f72", "stroke-width": 1.6 });
     if (kind === "triangle") return svg("path", { d: "M" + x + " " + (y - r - 1) + " L" + (x + r + 1) + " " + (y + r) + " L" + (x - r - 1) + " " + (y + r) + " Z", fill: "#7a4b00", stroke: "#7a4b00" });
     return svg("circle", { cx: x, cy: y, r: r, fill: "#1b4f72" });
   }
@@ -324,12 +324,12 @@
   function drawPlot(rows, fits) {
     const box = $("sweep-plot-box");
     box.textContent = "";
-    const W = 640, H = 360, L = 64, R = 190, T = 16, B = 48;
+    const W = 520, H = 400, L = 56, R = 16, T = 14, B = 126;
     const pts = [];
     SERIES.forEach(function (s) {
       rows.forEach(function (r) { const v = s.value(r); if (typeof v === "number" && v > 0 && r.variables > 0) pts.push([r.variables, v]); });
     });
-    const root = svg("svg", { xmlns: SVGNS, width: W, height: H, viewBox: "0 0 " + W + " " + H, role: "img", id: "sweep-plot", "font-family": "sans-serif", "font-size": 11 });
+    const root = svg("svg", { xmlns: SVGNS, width: W, height: H, viewBox: "0 0 " + W + " " + H, role: "img", id: "sweep-plot", "font-family": "sans-serif", "font-size": 13 });
     root.appendChild(svg("rect", { x: 0, y: 0, width: W, height: H, fill: "#ffffff" }));
     if (!pts.length) { root.appendChild(svg("text", { x: L, y: H / 2 }, "No finished size with a positive value to plot.")); box.appendChild(root); return; }
     const lx = pts.map(function (p) { return Math.log10(p[0]); }), ly = pts.map(function (p) { return Math.log10(p[1]); });
@@ -344,7 +344,7 @@
     root.appendChild(svg("line", { x1: L, y1: T, x2: L, y2: H - B, stroke: "#333" }));
     function ticks(a0, a1, draw) {
       for (let d = Math.floor(a0); d <= Math.ceil(a1); d++) {
-        [1, 2, 5].forEach(function (m) {
+        (a1 - a0 < 1.2 ? [1, 2, 3, 4, 5, 6, 7, 8, 9] : [1, 2, 5]).forEach(function (m) {
           const v = m * Math.pow(10, d);
           const lv = Math.log10(v);
           if (lv >= a0 - 1e-9 && lv <= a1 + 1e-9) draw(v);
@@ -361,9 +361,9 @@
       root.appendChild(svg("line", { x1: L, y1: y, x2: W - R, y2: y, stroke: "#ddd" }));
       root.appendChild(svg("text", { x: L - 6, y: y + 4, "text-anchor": "end" }, String(v)));
     });
-    root.appendChild(svg("text", { x: (L + W - R) / 2, y: H - 10, "text-anchor": "middle" }, "n (number of variables, log scale)"));
+    root.appendChild(svg("text", { x: (L + W - R) / 2, y: H - B + 32, "text-anchor": "middle" }, "n (number of variables, log scale)"));
     root.appendChild(svg("text", { x: 14, y: (T + H - B) / 2, "text-anchor": "middle", transform: "rotate(-90 14 " + (T + H - B) / 2 + ")" }, "value (log scale)"));
-    let legendY = T + 8;
+    let legendY = H - B + 56;
     SERIES.forEach(function (s) {
       const f = fits[s.key];
       const mine = rows.filter(function (r) { const v = s.value(r); return typeof v === "number" && v > 0; });
@@ -376,13 +376,11 @@
       }
       mine.forEach(function (r) { g.appendChild(marker(s.marker, px(r.variables), py(s.value(r)), 3.5)); });
       root.appendChild(g);
-      root.appendChild(marker(s.marker, W - R + 16, legendY, 3.5));
-      root.appendChild(svg("line", { x1: W - R + 24, y1: legendY, x2: W - R + 44, y2: legendY, stroke: "#555", "stroke-dasharray": s.dash }));
-      root.appendChild(svg("text", { x: W - R + 50, y: legendY + 4 }, s.label));
-      if (f && typeof f.exponent === "number") {
-        root.appendChild(svg("text", { x: W - R + 50, y: legendY + 18 }, "exponent " + num(f.exponent) + (typeof f.standardError === "number" ? " ± " + num(f.standardError) : "")));
-      }
-      legendY += 40;
+      root.appendChild(marker(s.marker, L + 8, legendY, 4));
+      root.appendChild(svg("line", { x1: L + 16, y1: legendY, x2: L + 44, y2: legendY, stroke: "#555", "stroke-width": 1.4, "stroke-dasharray": s.dash }));
+      root.appendChild(svg("text", { x: L + 52, y: legendY + 4 }, s.label + (f && typeof f.exponent === "number" ? ":  exponent " + num(f.exponent) +
+        (typeof f.standardError === "number" ? " ± " + num(f.standardError) : " (no error estimate)") : ":  no fit")));
+      legendY += 22;
     });
     root.setAttribute("aria-label", "Log–log plot of " + SERIES.map(function (s) { return s.label; }).join(", ") + " against n, with fitted lines");
     box.appendChild(root);

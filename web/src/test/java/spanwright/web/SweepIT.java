@@ -77,7 +77,8 @@ class SweepIT extends PageTestBase {
         String svg = (String) page.js("return new XMLSerializer().serializeToString(document.getElementById('sweep-plot'));");
         assertTrue(svg.startsWith("<svg") && svg.contains("exponent"), "the plot serialises as SVG");
 
-        page.driver.manage().window().setSize(new Dimension(1280, 720));
+        long chrome = ((Number) page.js("return window.outerHeight - window.innerHeight;")).longValue();
+        page.driver.manage().window().setSize(new Dimension(1280, 720 + (int) chrome));
         page.js("document.getElementById('sweep-plot').scrollIntoView();");
         Path shot = page.screenshot("sweep-1280x720");
         assertTrue(Files.size(shot) > 0);
@@ -92,5 +93,28 @@ class SweepIT extends PageTestBase {
         assertEquals("7", page.data("sweep-body", "computed"), "only the new size is computed");
         assertEquals("2,3,4,5,6", page.data("sweep-body", "kept"), "finished sizes are kept");
         assertFalse(page.$("sweep-status").getText().isEmpty());
+    }
+
+    @Test
+    void cancelKeepsFinishedSizesForTheNextRun() {
+        openClean();
+        page.$("tab-sweep").click();
+        page.waitFor("sweep sheet built", WAIT, () -> "yes".equals(page.js("return document.body.dataset.sweepReady;")));
+        page.js("const s = document.getElementById('sweep-family'); s.value = 'parity'; s.dispatchEvent(new Event('change'));"
+                + "document.getElementById('sweep-from').value = '2'; document.getElementById('sweep-to').value = '24';");
+        page.$("sweep-run").click();
+        String kept = "const v = JSON.parse(localStorage.getItem('spanwright.sweep.v1:' + JSON.stringify([{family: 'parity'}, {}])) || '{}');"
+                + "return Object.keys(v.rows || {}).length;";
+        page.waitFor("two sizes finished", WAIT, () -> ((Number) page.js(kept)).intValue() >= 2);
+        assertEquals("running", page.js("return document.body.dataset.sweep;"), "still running when cancelled");
+        page.js("document.getElementById('sweep-cancel').scrollIntoView({block: 'center'});");
+        page.$("sweep-cancel").click();
+        assertEquals("cancelled", page.js("return document.body.dataset.sweep;"));
+        assertFalse(page.$("sweep-progress").isDisplayed(), "progress hidden after cancel");
+        // The same sweep over the finished sizes only: nothing is computed again.
+        page.js("document.getElementById('sweep-to').value = '3';");
+        runSweep();
+        assertEquals("", page.data("sweep-body", "computed"));
+        assertEquals("2,3", page.data("sweep-body", "kept"));
     }
 }
