@@ -75,12 +75,14 @@ public final class SweepTables {
     }
 
     private static String latexNumber(Object v) {
-        String s = sig(v, 6);
+        String m = latexMath(sig(v, 6));
+        return m.indexOf('\\') < 0 ? m : "$" + m + "$";
+    }
+
+    /** A number from {@link NumberText#sig} in math-mode notation: 1.7e-10 → 1.7\cdot 10^{-10}. */
+    private static String latexMath(String s) {
         int e = s.indexOf('e');
-        if (e < 0) {
-            return s;
-        }
-        return "$" + s.substring(0, e) + "\\cdot 10^{" + s.substring(e + 1) + "}$";
+        return e < 0 ? s : s.substring(0, e) + "\\cdot 10^{" + s.substring(e + 1) + "}";
     }
 
     /** Text for a LaTeX comment or a \multicolumn cell: no line breaks, special characters escaped. */
@@ -142,10 +144,10 @@ public final class SweepTables {
                 String label = key.equals("complexity") ? "$\\sqrt{W_+W_-}$" : key.equals("decisionTree") ? "$D$"
                         : "$\\mathrm{ADV}^{\\pm}$";
                 sb.append("\\multicolumn{9}{l}{fitted exponent of ").append(label).append(" in $n$: $")
-                        .append(sig(f.get("exponent"), 4));
+                        .append(latexMath(sig(f.get("exponent"), 4)));
                 Object se = f.get("standardError");
                 if (se instanceof Number && !Double.isNaN(((Number) se).doubleValue())) {
-                    sb.append(" \\pm ").append(sig(se, 2));
+                    sb.append(" \\pm ").append(latexMath(sig(se, 2)));
                 }
                 sb.append("$ (").append(full(f.get("points"))).append(" sizes, $n = ").append(full(f.get("fromVariables")))
                         .append("\\ldots ").append(full(f.get("toVariables"))).append("$)} \\\\\n");
