@@ -66,6 +66,15 @@
     ctl.appendChild(labelled("from", numberInput("sweep-from", 2, 1), "Smallest size"));
     ctl.appendChild(labelled("to", numberInput("sweep-to", 6, 1), "Largest size"));
     ctl.appendChild(labelled("fit from", numberInput("sweep-fit-from", 0, 0), "Fit only sizes whose number of variables is at least this (0: all)"));
+    ctl.appendChild(labelled("fit last", numberInput("sweep-fit-last", 0, 0), "Fit only the last K sizes of the tail (0: all)"));
+    const defaults = answer.sweepOptions || {};
+    [["sweep-iterations", "optimiser iterations", "optimizeIterations", "Optimiser iterations per size (empty: the engine's default)"],
+      ["sweep-bounds-max", "bounds up to variables", "boundsMaxVariables", "Lower bounds only for sizes with at most this many variables (empty: the engine's default)"]].forEach(function (q) {
+      const i = numberInput(q[0], "", 0);
+      i.dataset.option = q[2];
+      if (defaults[q[2]] !== undefined) i.placeholder = String(defaults[q[2]]);
+      ctl.appendChild(labelled(q[1], i, q[3]));
+    });
     const run = el("button", "primary", "Run sweep");
     run.id = "sweep-run";
     run.addEventListener("click", start);
@@ -154,7 +163,12 @@
   }
 
   function request() {
-    return { family: { family: $("sweep-family").value }, options: {} };
+    const options = {};
+    ["sweep-iterations", "sweep-bounds-max"].forEach(function (id) {
+      const v = $(id).value.trim();
+      if (v !== "") options[$(id).dataset.option] = parseInt(v, 10);
+    });
+    return { family: { family: $("sweep-family").value }, options: options };
   }
 
   function storeKey(req) { return STORE + JSON.stringify([req.family, req.options]); }
@@ -231,7 +245,8 @@
     setBar("sweep-all-bar", "sweep-all-text", sizes.length, sizes.length, " " + sizes.length + " of " + sizes.length + " sizes");
     const rows = sizes.map(function (n) { return kept[n]; });
     const fitFrom = parseInt($("sweep-fit-from").value, 10) || 0;
-    const rep = await st.task.run("sweepReport", JSON.stringify({ family: req.family, sizes: from + ".." + to, options: req.options, rows: rows, fitFrom: fitFrom, fitLast: 0 }));
+    const fitLast = parseInt($("sweep-fit-last").value, 10) || 0;
+    const rep = await st.task.run("sweepReport", JSON.stringify({ family: req.family, sizes: from + ".." + to, options: req.options, rows: rows, fitFrom: fitFrom, fitLast: fitLast }));
     if (serial !== st.serial || rep.cancelled) return;
     st.running = false;
     $("sweep-progress").hidden = true;
