@@ -162,28 +162,40 @@ public final class WeightOptimizer {
                     status = OptimizationResult.Status.BUDGET_REACHED;
                     break;
                 }
-                addNearWorst(ev.positiveValue, ev.maxR, ev.worstPositive, activeP);
-                addNearWorst(ev.negativeValue, ev.maxC, ev.worstNegative, activeN);
-                double[][] a = rows(ev, activeP, true, group, g);
-                double[][] b = rows(ev, activeN, false, group, g);
-                double[] target = solver.minimise(a, b, u);
-                double t = 1.0;
                 boolean accepted = false;
                 double fNew = f;
                 double[] uNew = u;
-                for (int ls = 0; ls < 30; ls++) {
-                    double[] trial = new double[g];
-                    for (int q = 0; q < g; q++) {
-                        trial[q] = u[q] + t * (target[q] - u[q]);
+                // When no descent is found, the active sets may lack some of many tied worst
+                // inputs: widen them (4×, 16×, 64× more per side) before calling it converged.
+                for (int attempt = 0; attempt < 4 && !accepted; attempt++) {
+                    if (attempt > 0) {
+                        ev.evaluate(expand(u, group)); // the values at u, not at the last trial
                     }
-                    double ft = ev.evaluate(expand(trial, group));
-                    if (ft < f * (1 - 1e-15)) {
-                        accepted = true;
-                        fNew = ft;
-                        uNew = trial;
-                        break;
+                    int before = activeP.size() + activeN.size();
+                    int cap = ADD_PER_STEP << (2 * attempt);
+                    addNearWorst(ev.positiveValue, ev.maxR, ev.worstPositive, activeP, cap);
+                    addNearWorst(ev.negativeValue, ev.maxC, ev.worstNegative, activeN, cap);
+                    if (attempt > 0 && activeP.size() + activeN.size() == before) {
+                        break; // nothing new to add: no descent from here
                     }
-                    t *= 0.5;
+                    double[][] a = rows(ev, activeP, true, group, g);
+                    double[][] b = rows(ev, activeN, false, group, g);
+                    double[] target = solver.minimise(a, b, u);
+                    double t = 1.0;
+                    for (int ls = 0; ls < 30; ls++) {
+                        double[] trial = new double[g];
+                        for (int q = 0; q < g; q++) {
+                            trial[q] = u[q] + t * (target[q] - u[q]);
+                        }
+                        double ft = ev.evaluate(expand(trial, group));
+                        if (ft < f * (1 - 1e-15)) {
+                            accepted = true;
+                            fNew = ft;
+                            uNew = trial;
+                            break;
+                        }
+                        t *= 0.5;
+                    }
                 }
                 totalIterations++;
                 if (!accepted) {
@@ -217,12 +229,12 @@ public final class WeightOptimizer {
                 options.starts, bestStart);
     }
 
-    private static void addNearWorst(double[] values, double max, int worst, Set<Integer> active) {
+    private static void addNearWorst(double[] values, double max, int worst, Set<Integer> active, int cap) {
         if (worst >= 0) {
             active.add(worst);
         }
         int added = 0;
-        for (int i = 0; i < values.length && added < ADD_PER_STEP; i++) {
+        for (int i = 0; i < values.length && added < cap; i++) {
             if (values[i] >= (1 - NEAR) * max && active.add(i)) {
                 added++;
             }
@@ -271,9 +283,6 @@ public final class WeightOptimizer {
             int iterations, int starts, int bestStart) {
         double[] w = expand(u, group);
         ev.evaluate(w);
-        if (System.getProperty("sw.debug") != null) {
-            System.out.println("finish: R=" + ev.maxR + " C=" + ev.maxC + " trace end " + trace.get(trace.size() - 1) + " u=" + java.util.Arrays.toString(u));
-        }
         boolean balanced = false;
         if (!anyLocked && ev.worstPositive >= 0 && ev.worstNegative >= 0 && ev.maxR > 0 && ev.maxC > 0) {
             double lambda = Math.sqrt(ev.maxC / ev.maxR);
