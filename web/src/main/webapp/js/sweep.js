@@ -192,6 +192,7 @@
 
   function fail(message) {
     st.running = false;
+    $("sweep-run").disabled = false;
     $("sweep-progress").hidden = true;
     const box = $("sweep-error");
     box.hidden = false;
@@ -214,6 +215,7 @@
     $("sweep-error").hidden = true;
     $("sweep-progress").hidden = false;
     document.body.dataset.sweep = "running";
+    $("sweep-run").disabled = true;
     const computed = [], skipped = [];
     const t0 = performance.now();
     for (let i = 0; i < sizes.length; i++) {
@@ -249,6 +251,7 @@
     const rep = await st.task.run("sweepReport", JSON.stringify({ family: req.family, sizes: from + ".." + to, options: req.options, rows: rows, fitFrom: fitFrom, fitLast: fitLast }));
     if (serial !== st.serial || rep.cancelled) return;
     st.running = false;
+    $("sweep-run").disabled = false;
     $("sweep-progress").hidden = true;
     if (!rep.ok) { fail("No report: " + K.problem(rep)); return; }
     const body = $("sweep-body");
@@ -265,6 +268,7 @@
     if (!st.running) return;
     st.serial++;
     st.running = false;
+    $("sweep-run").disabled = false;
     if (st.task) st.task.cancel();
     $("sweep-progress").hidden = true;
     $("sweep-status").textContent = "Cancelled. Finished sizes are kept; run the same sweep again to go on.";

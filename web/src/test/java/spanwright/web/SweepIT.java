@@ -96,7 +96,7 @@ class SweepIT extends PageTestBase {
     }
 
     @Test
-    void cancelKeepsFinishedSizesForTheNextRun() {
+    void cancelKeepsFinishedSizesForTheNextRun() throws Exception {
         openClean();
         page.$("tab-sweep").click();
         page.waitFor("sweep sheet built", WAIT, () -> "yes".equals(page.js("return document.body.dataset.sweepReady;")));
@@ -108,6 +108,7 @@ class SweepIT extends PageTestBase {
         page.waitFor("two sizes finished", WAIT, () -> ((Number) page.js(kept)).intValue() >= 2);
         assertEquals("running", page.js("return document.body.dataset.sweep;"), "still running when cancelled");
         page.js("document.getElementById('sweep-cancel').scrollIntoView({block: 'center'});");
+        page.screenshot("sweep-running");
         page.$("sweep-cancel").click();
         assertEquals("cancelled", page.js("return document.body.dataset.sweep;"));
         assertFalse(page.$("sweep-progress").isDisplayed(), "progress hidden after cancel");
