@@ -119,29 +119,14 @@ public final class PageAssembler {
         return code.replace("</script", "<\\/script").replace("<!--", "<\\!--");
     }
 
-    /** A JavaScript string literal for any text; also safe inside an inline script element. */
+    /**
+     * A JavaScript string literal for any text (a JSON string is one), also safe inside an inline
+     * script element: core's JSON quoting, with '<' and '>' escaped as well.
+     */
     static String jsString(String s) {
-        StringBuilder sb = new StringBuilder(s.length() + 16).append('"');
-        for (int i = 0; i < s.length(); i++) {
-            char c = s.charAt(i);
-            switch (c) {
-                case '"': sb.append("\\\""); break;
-                case '\\': sb.append("\\\\"); break;
-                case '\n': sb.append("\\n"); break;
-                case '\r': sb.append("\\r"); break;
-                case '\t': sb.append("\\t"); break;
-                case '<': sb.append("\\u003c"); break;
-                case '>': sb.append("\\u003e"); break;
-                default:
-                    if (c < 0x20 || c == 0x2028 || c == 0x2029) {
-                        String hex = Integer.toHexString(c);
-                        sb.append("\\u").append("0000", hex.length(), 4).append(hex);
-                    } else {
-                        sb.append(c);
-                    }
-            }
-        }
-        return sb.append('"').toString();
+        StringBuilder sb = new StringBuilder(s.length() + 16);
+        spanwright.io.Json.quote(sb, s);
+        return sb.toString().replace("<", "\\u003c").replace(">", "\\u003e");
     }
 
     private static void copyTree(Path from, Path to) throws IOException {
