@@ -63,6 +63,13 @@
     });
     sel.addEventListener("change", defaultsFor);
     ctl.appendChild(labelled("family", sel, "A built-in family of the engine"));
+    const fo = el("input");
+    fo.id = "sweep-family-options";
+    fo.type = "text";
+    fo.spellcheck = false;
+    const foLabel = labelled("family options (JSON)", fo, "Options of the family as a JSON object, e.g. {\"k\": \"n / 2\"} for the threshold family; empty: the engine's defaults");
+    foLabel.id = "sweep-family-options-field";
+    ctl.appendChild(foLabel);
     ctl.appendChild(labelled("from", numberInput("sweep-from", 2, 1), "Smallest size"));
     ctl.appendChild(labelled("to", numberInput("sweep-to", 6, 1), "Largest size"));
     ctl.appendChild(labelled("fit from", numberInput("sweep-fit-from", 0, 0), "Fit only sizes whose number of variables is at least this (0: all)"));
@@ -160,6 +167,10 @@
     const f = family();
     if (!f) return;
     $("sweep-meaning").textContent = f.parameter + " = " + f.meaning + "; the engine suggests " + f.parameter + " = " + f.defaultSizes + ".";
+    const opts = f.options || [];
+    $("sweep-family-options-field").hidden = opts.length === 0;
+    $("sweep-family-options").value = "";
+    $("sweep-family-options").placeholder = opts.length ? "{" + opts.map(function (o) { return "\"" + o + "\": …"; }).join(", ") + "}" : "";
   }
 
   function request() {
@@ -168,7 +179,15 @@
       const v = $(id).value.trim();
       if (v !== "") options[$(id).dataset.option] = parseInt(v, 10);
     });
-    return { family: { family: $("sweep-family").value }, options: options };
+    const spec = { family: $("sweep-family").value };
+    const extra = $("sweep-family-options").value.trim();
+    if (extra !== "" && !$("sweep-family-options-field").hidden) {
+      let o;
+      try { o = JSON.parse(extra); } catch (e) { throw new Error("The family options are not JSON: " + e.message); }
+      if (!o || typeof o !== "object" || Array.isArray(o)) throw new Error("The family options must be a JSON object.");
+      Object.keys(o).forEach(function (k) { if (k !== "family") spec[k] = o[k]; });
+    }
+    return { family: spec, options: options };
   }
 
   function storeKey(req) { return STORE + JSON.stringify([req.family, req.options]); }
@@ -205,7 +224,8 @@
     const from = parseInt($("sweep-from").value, 10);
     const to = parseInt($("sweep-to").value, 10);
     if (!(from >= 1) || !(to >= from)) { fail("Choose sizes with 1 ≤ from ≤ to."); return; }
-    const req = request();
+    let req;
+    try { req = request(); } catch (e) { fail(e.message); return; }
     const sizes = [];
     for (let n = from; n <= to; n++) sizes.push(n);
     const kept = loadKept(req);
