@@ -118,4 +118,37 @@ class SweepIT extends PageTestBase {
         assertEquals("", page.data("sweep-body", "computed"));
         assertEquals("2,3", page.data("sweep-body", "kept"));
     }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void familyOptionsReachTheEngine() {
+        openClean();
+        page.$("tab-sweep").click();
+        page.waitFor("sweep sheet built", WAIT, () -> "yes".equals(page.js("return document.body.dataset.sweepReady;")));
+        page.js("const s = document.getElementById('sweep-family'); s.value = 'threshold'; s.dispatchEvent(new Event('change'));"
+                + "document.getElementById('sweep-from').value = '2'; document.getElementById('sweep-to').value = '4';"
+                + "document.getElementById('sweep-family-options').value = '{\"k\": oops}';");
+        page.$("sweep-run").click();
+        assertEquals("error", page.js("return document.body.dataset.sweep;"), "bad JSON is refused before the engine");
+        assertTrue(page.$("sweep-error").getText().contains("not JSON"));
+        page.js("document.getElementById('sweep-family-options').value = '{\"k\": \"n / 2\"}';");
+        runSweep();
+        // Source: JsonFacade.sweep on the JVM with the same family spec.
+        Map<String, Object> jvm = (Map<String, Object>) Json.parse(JsonFacade.sweep(
+                "{\"family\":{\"family\":\"threshold\",\"k\":\"n / 2\"},\"sizes\":\"2..4\",\"options\":{}}"));
+        assertEquals(Boolean.TRUE, jvm.get("ok"), () -> "JVM sweep failed: " + jvm);
+        List<Object> rows = (List<Object>) ((Map<String, Object>) jvm.get("result")).get("rows");
+        List<WebElement> trs = page.driver.findElements(By.cssSelector("#sweep-table tbody tr"));
+        assertEquals(rows.size(), trs.size(), "rows");
+        for (int i = 0; i < rows.size(); i++) {
+            Object c = ((Map<String, Object>) rows.get(i)).get("complexity");
+            String shown = trs.get(i).getAttribute("data-complexity");
+            if (!(c instanceof Number)) {
+                assertEquals("", shown, "no complexity in row " + i);
+                continue;
+            }
+            double e = ((Number) c).doubleValue();
+            assertEquals(e, Double.parseDouble(shown), TOL * e, "sqrt(W+W-) of thr(n/2, n) in row " + i);
+        }
+    }
 }
