@@ -38,12 +38,22 @@ class BuilderIT extends PageTestBase {
     }
 
     private void chooseKind(String kind) {
-        page.driver.findElement(By.cssSelector("input[name=bkind][value=" + kind + "]")).click();
+        By radio = By.cssSelector("input[name=bkind][value=" + kind + "]");
+        page.driver.findElement(radio).click();
+        // the kind's fields are shown by the page's change handler; on a loaded machine that can
+        // lag behind the click, so wait for the dialog to say it switched
+        page.waitFor("builder kind " + kind, WAIT, () -> {
+            if (!page.driver.findElement(radio).isSelected()) {
+                page.driver.findElement(radio).click();
+            }
+            return kind.equals(page.$("builder").getAttribute("data-kind"));
+        });
     }
 
     /** Types into a field and waits until a request holding {@code fragment} has been previewed. */
     private void type(String id, String text, String fragment) {
         WebElement f = page.$(id);
+        page.waitFor(id + " shown", WAIT, () -> f.isDisplayed() && f.isEnabled());
         f.sendKeys(Keys.chord(Keys.CONTROL, "a"), text);
         page.waitFor("preview of a request with " + fragment, WAIT,
                 () -> dialog("request").contains(fragment) && !"running".equals(dialog("preview")));
