@@ -230,4 +230,34 @@ class BenchIT {
             Files.deleteIfExists(file);
         }
     }
+
+    /**
+     * The simulation benchmark scenario of `simulate --bench` (seed 1: 10 variables, 24 vertices,
+     * 60 edges, all 1024 inputs) simulated in the page's Run sheet in both engines; the figure goes
+     * next to the JVM's in bench-browser.txt.
+     */
+    @Test
+    void simulationBenchmarkInThePage() throws IOException {
+        spanwright.model.Scenario sc = spanwright.model.RandomScenarios.generate(new java.util.Random(1), 10, 24, 60,
+                0.0, 0.5, 0.5, 2.0);
+        Path file = Files.createTempFile("simulate-bench-", ".json");
+        Files.writeString(file, spanwright.io.ScenarioWriter.write(sc), StandardCharsets.UTF_8);
+        try (PageDriver page = new PageDriver(1280, 900)) {
+            for (String engine : new String[] {"wasm", "js"}) {
+                page.driver.get(PageDriver.pageUrl(null));
+                page.js("localStorage.clear();");
+                page.driver.get("about:blank");
+                page.openFresh("?engine=" + engine);
+                int serial = page.serial();
+                page.$("open-file").sendKeys(file.toString());
+                page.waitForAnalysis(serial, WAIT);
+                page.$("tab-run").click();
+                page.waitFor("simulated", WAIT, () -> "ready".equals(page.js("return document.body.dataset.simulation;")));
+                record("engine=" + engine + " simulation of the simulate --bench scenario (1024 inputs, 60 edges): "
+                        + page.$("run-body").getAttribute("data-ms") + " ms");
+            }
+        } finally {
+            Files.deleteIfExists(file);
+        }
+    }
 }
