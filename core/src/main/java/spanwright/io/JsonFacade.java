@@ -237,6 +237,95 @@ public final class JsonFacade {
         }
     }
 
+    private static final Map<Integer, Object[]> OPT_JOBS = new java.util.LinkedHashMap<>();
+
+    /**
+     * Stepwise optimisation, for a page that draws the trace as it grows. {@code optimizeStart(
+     * scenario, options)} → {@code {"ok":true,"job":ID,"initialComplexity"}}; {@code
+     * optimizeStep(ID, steps)} runs up to {@code steps} outer steps → {@code {"ok":true,"done",
+     * "start","iteration","complexity","trace":[…]}} (the trace of the start in progress);
+     * {@code optimizeFinish(ID)} → exactly what {@link #optimize} answers for the same input (it
+     * is the same loop); {@code optimizeCancel(ID)} stops at the best point so far and forgets the
+     * job. At most {@link #MAX_JOBS} unfinished jobs are kept.
+     */
+    public static String optimizeStart(String scenarioJson, String optionsJson) {
+        try {
+            Scenario sc = ScenarioReader.read(scenarioJson);
+            spanwright.optimize.WeightOptimizer.Run run = spanwright.optimize.WeightOptimizer.start(sc, null,
+                    optimizerOptions(optionsJson));
+            while (OPT_JOBS.size() >= MAX_JOBS) {
+                OPT_JOBS.remove(OPT_JOBS.keySet().iterator().next());
+            }
+            int id = nextJob++;
+            OPT_JOBS.put(id, new Object[] {run, scenarioJson});
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("ok", true);
+            m.put("job", id);
+            m.put("initialComplexity", ResultJson.num(run.initialComplexity()));
+            return Json.write(m);
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** See {@link #optimizeStart}. */
+    public static String optimizeStep(int job, int steps) {
+        Object[] j = OPT_JOBS.get(job);
+        if (j == null) {
+            return error("no-job", "$", "no optimisation job " + job + " (finished or cancelled)");
+        }
+        try {
+            spanwright.optimize.WeightOptimizer.Run run = (spanwright.optimize.WeightOptimizer.Run) j[0];
+            boolean done = run.done();
+            for (int k = 0; k < Math.max(1, steps) && !done; k++) {
+                done = run.step();
+            }
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("ok", true);
+            m.put("done", done);
+            m.put("start", run.currentStart());
+            m.put("iteration", run.currentIteration());
+            m.put("complexity", ResultJson.num(run.currentComplexity()));
+            List<Object> trace = new ArrayList<>();
+            for (double d : run.currentTrace()) {
+                trace.add(ResultJson.num(d));
+            }
+            m.put("trace", trace);
+            return Json.write(m);
+        } catch (RuntimeException e) {
+            OPT_JOBS.remove(job);
+            return fail(e);
+        }
+    }
+
+    /** See {@link #optimizeStart}. */
+    public static String optimizeFinish(int job) {
+        Object[] j = OPT_JOBS.remove(job);
+        if (j == null) {
+            return error("no-job", "$", "no optimisation job " + job + " (finished or cancelled)");
+        }
+        try {
+            spanwright.optimize.WeightOptimizer.Run run = (spanwright.optimize.WeightOptimizer.Run) j[0];
+            while (!run.step()) {
+                // run to the end
+            }
+            spanwright.optimize.OptimizationResult r = run.result();
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("ok", true);
+            m.put("result", ResultJson.optimization(r));
+            m.put("scenario", ResultJson.withWeights((String) j[1], r.scenario));
+            return Json.write(m);
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /** See {@link #optimizeStart}. */
+    public static String optimizeCancel(int job) {
+        OPT_JOBS.remove(job);
+        return ok(null, null);
+    }
+
     /** Parses optimiser options (JSON object, all keys optional). */
     public static spanwright.optimize.OptimizerOptions optimizerOptions(String optionsJson) {
         spanwright.optimize.OptimizerOptions opt = spanwright.optimize.OptimizerOptions.defaults();

@@ -76,157 +76,283 @@ public final class WeightOptimizer {
      */
     public static OptimizationResult optimize(Scenario scenario, CandidateInputs candidates, OptimizerOptions options,
             OptimizationResult.Listener listener) {
-        long deadline = System.currentTimeMillis() + options.maxMillis;
-        WorstCaseEvaluator ev = candidates == null ? new WorstCaseEvaluator(scenario)
-                : new WorstCaseEvaluator(scenario, candidates);
-        int m = ev.keptEdge.length;
-
-        // weight groups over kept edges
-        Map<String, Integer> groupOf = new HashMap<>();
-        int[] group = new int[m];
-        List<Boolean> lockedList = new ArrayList<>();
-        for (int k = 0; k < m; k++) {
-            Edge e = scenario.edges().get(ev.keptEdge[k]);
-            String key;
-            if (e.locked()) {
-                key = "locked#" + k;
-            } else if (e.group() != null) {
-                key = "group:" + e.group();
-            } else if (options.tie == OptimizerOptions.Tie.LITERAL) {
-                key = "literal:" + e.when();
-            } else {
-                key = "edge#" + k;
-            }
-            Integer gi = groupOf.get(key);
-            if (gi == null) {
-                gi = groupOf.size();
-                groupOf.put(key, gi);
-                lockedList.add(e.locked());
-            }
-            group[k] = gi;
-        }
-        int g = groupOf.size();
-        boolean[] free = new boolean[g];
-        double[] u0 = new double[g];
-        int[] members = new int[g];
-        boolean anyLocked = false;
-        for (int q = 0; q < g; q++) {
-            free[q] = !lockedList.get(q);
-            anyLocked |= !free[q];
-        }
-        for (int k = 0; k < m; k++) {
-            u0[group[k]] += Math.log(scenario.edges().get(ev.keptEdge[k]).weight());
-            members[group[k]]++;
-        }
-        int freeCount = 0;
-        for (int q = 0; q < g; q++) {
-            u0[q] /= members[q]; // geometric mean of the members' weights
-            if (free[q]) {
-                freeCount++;
+        Run run = start(scenario, candidates, options);
+        while (!run.step()) {
+            if (run.accepted && listener != null
+                    && !listener.progress(run.start, run.iteration, Math.sqrt(run.f))) {
+                run.cancel();
             }
         }
+        return run.result();
+    }
 
-        double initial = Math.sqrt(ev.evaluate(expand(u0, group)));
-        if (Double.isNaN(initial) || freeCount == 0 || initial == 0) {
-            return finish(scenario, ev, u0, group, anyLocked, OptimizationResult.Status.NOTHING_TO_DO,
-                    initial, List.of(initial), 0, 1, 0);
+    /** Starts a stepwise optimisation (for callers that show progress): see {@link Run}. */
+    public static Run start(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
+        return new Run(scenario, candidates, options);
+    }
+
+    /**
+     * One optimisation, advanced one outer step per {@link #step} call; {@link #optimize} is a loop
+     * over these steps, so a stepped run and a one-call run are the same computation.
+     * <b>Mutable, single-threaded.</b>
+     */
+    public static final class Run {
+        private final Scenario scenario;
+        private final OptimizerOptions options;
+        private final long deadline;
+        private final WorstCaseEvaluator ev;
+        private final int[] group;
+        private final int g;
+        private final boolean[] free;
+        private final double[] u0;
+        private final boolean anyLocked;
+        private final double initial;
+        private final SurrogateSolver solver;
+        private final SeededRandom rnd;
+        private double bestF = Double.POSITIVE_INFINITY;
+        private double[] bestU;
+        private List<Double> bestTrace;
+        private OptimizationResult.Status bestStatus = OptimizationResult.Status.CONVERGED;
+        private int totalIterations;
+        private int bestStart;
+        private boolean cancelled;
+        private boolean finished;
+        private OptimizationResult.Status finalStatus;
+        // the start in progress
+        int start = -1;
+        int iteration;
+        boolean accepted;
+        double f;
+        private double[] u;
+        private List<Double> trace;
+        private Set<Integer> activeP;
+        private Set<Integer> activeN;
+        private boolean inStart;
+        private OptimizationResult.Status status;
+
+        Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
+            this.scenario = scenario;
+            this.options = options;
+            this.deadline = System.currentTimeMillis() + options.maxMillis;
+            this.ev = candidates == null ? new WorstCaseEvaluator(scenario) : new WorstCaseEvaluator(scenario, candidates);
+            int m = ev.keptEdge.length;
+            // weight groups over kept edges
+            Map<String, Integer> groupOf = new HashMap<>();
+            group = new int[m];
+            List<Boolean> lockedList = new ArrayList<>();
+            for (int k = 0; k < m; k++) {
+                Edge e = scenario.edges().get(ev.keptEdge[k]);
+                String key;
+                if (e.locked()) {
+                    key = "locked#" + k;
+                } else if (e.group() != null) {
+                    key = "group:" + e.group();
+                } else if (options.tie == OptimizerOptions.Tie.LITERAL) {
+                    key = "literal:" + e.when();
+                } else {
+                    key = "edge#" + k;
+                }
+                Integer gi = groupOf.get(key);
+                if (gi == null) {
+                    gi = groupOf.size();
+                    groupOf.put(key, gi);
+                    lockedList.add(e.locked());
+                }
+                group[k] = gi;
+            }
+            g = groupOf.size();
+            free = new boolean[g];
+            u0 = new double[g];
+            int[] members = new int[g];
+            boolean locked = false;
+            for (int q = 0; q < g; q++) {
+                free[q] = !lockedList.get(q);
+                locked |= !free[q];
+            }
+            anyLocked = locked;
+            for (int k = 0; k < m; k++) {
+                u0[group[k]] += Math.log(scenario.edges().get(ev.keptEdge[k]).weight());
+                members[group[k]]++;
+            }
+            int freeCount = 0;
+            for (int q = 0; q < g; q++) {
+                u0[q] /= members[q]; // geometric mean of the members' weights
+                if (free[q]) {
+                    freeCount++;
+                }
+            }
+            initial = Math.sqrt(ev.evaluate(expand(u0, group)));
+            bestU = u0;
+            solver = new SurrogateSolver(g, free, u0);
+            rnd = new SeededRandom(options.seed); // java.util.Random ignores seeds under TeaVM
+            if (Double.isNaN(initial) || freeCount == 0 || initial == 0) {
+                finished = true;
+                finalStatus = OptimizationResult.Status.NOTHING_TO_DO;
+                bestTrace = List.of(initial);
+            }
         }
 
-        SurrogateSolver solver = new SurrogateSolver(g, free, u0);
-        SeededRandom rnd = new SeededRandom(options.seed); // java.util.Random ignores seeds under TeaVM
-        double bestF = Double.POSITIVE_INFINITY;
-        double[] bestU = u0;
-        List<Double> bestTrace = null;
-        OptimizationResult.Status bestStatus = OptimizationResult.Status.CONVERGED;
-        int totalIterations = 0;
-        int bestStart = 0;
-        boolean cancelled = false;
-        for (int start = 0; start < options.starts && !cancelled; start++) {
-            double[] u = u0.clone();
+        /** √(W₊W₋) with the starting weights. */
+        public double initialComplexity() {
+            return initial;
+        }
+
+        /** √(W₊W₋) at the current point of the start in progress (or the best so far). */
+        public double currentComplexity() {
+            return inStart ? Math.sqrt(f) : Math.sqrt(bestF);
+        }
+
+        /** Index of the start in progress (0 = the given weights). */
+        public int currentStart() {
+            return Math.max(0, start);
+        }
+
+        /** Outer steps taken in the start in progress. */
+        public int currentIteration() {
+            return iteration;
+        }
+
+        /** The objective trace of the start in progress (a copy). */
+        public List<Double> currentTrace() {
+            return trace == null ? List.of(initial) : new ArrayList<>(trace);
+        }
+
+        /** Ends the search at the best point found so far (status cancelled). */
+        public void cancel() {
+            cancelled = true;
+        }
+
+        public boolean done() {
+            return finished;
+        }
+
+        /**
+         * One outer step (or the set-up of the next start).
+         *
+         * @return true when the search has ended
+         */
+        public boolean step() {
+            accepted = false;
+            if (finished) {
+                return true;
+            }
+            if (cancelled) {
+                if (inStart) {
+                    endStart(OptimizationResult.Status.CANCELLED);
+                }
+                finishSearch(OptimizationResult.Status.CANCELLED);
+                return true;
+            }
+            if (!inStart) {
+                if (start + 1 >= options.starts) {
+                    finishSearch(bestStatus);
+                    return true;
+                }
+                beginStart();
+                return false;
+            }
+            if (iteration >= options.maxIterations || System.currentTimeMillis() > deadline) {
+                endStart(OptimizationResult.Status.BUDGET_REACHED);
+                return false;
+            }
+            double fNew = f;
+            double[] uNew = u;
+            // When no descent is found, the active sets may lack some of many tied worst
+            // inputs: widen them (4×, 16×, 64× more per side) before calling it converged.
+            for (int attempt = 0; attempt < 4 && !accepted; attempt++) {
+                if (attempt > 0) {
+                    ev.evaluate(expand(u, group)); // the values at u, not at the last trial
+                }
+                int before = activeP.size() + activeN.size();
+                int cap = ADD_PER_STEP << (2 * attempt);
+                addNearWorst(ev.positiveValue, ev.maxR, ev.worstPositive, activeP, cap);
+                addNearWorst(ev.negativeValue, ev.maxC, ev.worstNegative, activeN, cap);
+                if (attempt > 0 && activeP.size() + activeN.size() == before) {
+                    break; // nothing new to add: no descent from here
+                }
+                double[][] a = rows(ev, activeP, true, group, g);
+                double[][] b = rows(ev, activeN, false, group, g);
+                double[] target = solver.minimise(a, b, u);
+                double t = 1.0;
+                for (int ls = 0; ls < 30; ls++) {
+                    double[] trial = new double[g];
+                    for (int q = 0; q < g; q++) {
+                        trial[q] = u[q] + t * (target[q] - u[q]);
+                    }
+                    double ft = ev.evaluate(expand(trial, group));
+                    if (ft < f * (1 - 1e-15)) {
+                        accepted = true;
+                        fNew = ft;
+                        uNew = trial;
+                        break;
+                    }
+                    t *= 0.5;
+                }
+            }
+            totalIterations++;
+            iteration++;
+            if (!accepted) {
+                ev.evaluate(expand(u, group)); // restore the evaluator's state at u
+                endStart(OptimizationResult.Status.CONVERGED);
+                return false;
+            }
+            double rel = (Math.sqrt(f) - Math.sqrt(fNew)) / Math.sqrt(f);
+            u = uNew;
+            f = fNew;
+            trace.add(Math.sqrt(f));
+            if (rel < options.tolerance) {
+                endStart(OptimizationResult.Status.CONVERGED);
+            }
+            return false;
+        }
+
+        private void beginStart() {
+            start++;
+            iteration = 0;
+            double[] v = u0.clone();
             if (start > 0) {
                 for (int q = 0; q < g; q++) {
                     if (free[q]) {
-                        u[q] += 0.7 * rnd.nextGaussian();
+                        v[q] += 0.7 * rnd.nextGaussian();
                     }
                 }
             }
-            u = solver.clamp(u);
-            double f = ev.evaluate(expand(u, group));
-            List<Double> trace = new ArrayList<>();
+            u = solver.clamp(v);
+            f = ev.evaluate(expand(u, group));
+            trace = new ArrayList<>();
             trace.add(Math.sqrt(f));
-            Set<Integer> activeP = new LinkedHashSet<>();
-            Set<Integer> activeN = new LinkedHashSet<>();
-            OptimizationResult.Status status = OptimizationResult.Status.BUDGET_REACHED;
-            for (int it = 0; it < options.maxIterations; it++) {
-                if (System.currentTimeMillis() > deadline) {
-                    status = OptimizationResult.Status.BUDGET_REACHED;
-                    break;
-                }
-                boolean accepted = false;
-                double fNew = f;
-                double[] uNew = u;
-                // When no descent is found, the active sets may lack some of many tied worst
-                // inputs: widen them (4×, 16×, 64× more per side) before calling it converged.
-                for (int attempt = 0; attempt < 4 && !accepted; attempt++) {
-                    if (attempt > 0) {
-                        ev.evaluate(expand(u, group)); // the values at u, not at the last trial
-                    }
-                    int before = activeP.size() + activeN.size();
-                    int cap = ADD_PER_STEP << (2 * attempt);
-                    addNearWorst(ev.positiveValue, ev.maxR, ev.worstPositive, activeP, cap);
-                    addNearWorst(ev.negativeValue, ev.maxC, ev.worstNegative, activeN, cap);
-                    if (attempt > 0 && activeP.size() + activeN.size() == before) {
-                        break; // nothing new to add: no descent from here
-                    }
-                    double[][] a = rows(ev, activeP, true, group, g);
-                    double[][] b = rows(ev, activeN, false, group, g);
-                    double[] target = solver.minimise(a, b, u);
-                    double t = 1.0;
-                    for (int ls = 0; ls < 30; ls++) {
-                        double[] trial = new double[g];
-                        for (int q = 0; q < g; q++) {
-                            trial[q] = u[q] + t * (target[q] - u[q]);
-                        }
-                        double ft = ev.evaluate(expand(trial, group));
-                        if (ft < f * (1 - 1e-15)) {
-                            accepted = true;
-                            fNew = ft;
-                            uNew = trial;
-                            break;
-                        }
-                        t *= 0.5;
-                    }
-                }
-                totalIterations++;
-                if (!accepted) {
-                    ev.evaluate(expand(u, group)); // restore the evaluator's state at u
-                    status = OptimizationResult.Status.CONVERGED;
-                    break;
-                }
-                double rel = (Math.sqrt(f) - Math.sqrt(fNew)) / Math.sqrt(f);
-                u = uNew;
-                f = fNew;
-                trace.add(Math.sqrt(f));
-                if (listener != null && !listener.progress(start, it + 1, Math.sqrt(f))) {
-                    status = OptimizationResult.Status.CANCELLED;
-                    cancelled = true;
-                    break;
-                }
-                if (rel < options.tolerance) {
-                    status = OptimizationResult.Status.CONVERGED;
-                    break;
-                }
-            }
+            activeP = new LinkedHashSet<>();
+            activeN = new LinkedHashSet<>();
+            inStart = true;
+        }
+
+        private void endStart(OptimizationResult.Status s) {
+            inStart = false;
             if (f < bestF) {
                 bestF = f;
                 bestU = u;
                 bestTrace = trace;
-                bestStatus = status;
+                bestStatus = s;
                 bestStart = start;
             }
         }
-        return finish(scenario, ev, bestU, group, anyLocked, bestStatus, initial, bestTrace, totalIterations,
-                options.starts, bestStart);
+
+        private void finishSearch(OptimizationResult.Status s) {
+            finished = true;
+            finalStatus = s;
+        }
+
+        /** The result; requires {@link #done()}. Runs the full analysis of the final weights. */
+        public OptimizationResult result() {
+            if (!finished) {
+                throw new IllegalStateException("optimisation not finished");
+            }
+            if (finalStatus == OptimizationResult.Status.NOTHING_TO_DO) {
+                return finish(scenario, ev, u0, group, anyLocked, finalStatus, initial, bestTrace, 0, 1, 0);
+            }
+            return finish(scenario, ev, bestU, group, anyLocked, finalStatus, initial, bestTrace, totalIterations,
+                    options.starts, bestStart);
+        }
     }
 
     private static void addNearWorst(double[] values, double max, int worst, Set<Integer> active, int cap) {
