@@ -59,7 +59,9 @@
     document.body.dataset.optimiser = on ? "running" : (run.answer ? "result" : "idle");
     clearInterval(run.timer);
     if (on) {
+      document.body.dataset.optimiserSteps = "0";
       run.timer = setInterval(function () {
+        if (document.body.dataset.optimiserSteps !== "0") return; // the live trace line takes over
         $("opt-elapsed").textContent = "searching… " + ((performance.now() - run.started) / 1000).toFixed(1) + " s";
       }, 100);
       $("opt-elapsed").textContent = "searching… 0.0 s";
@@ -86,7 +88,7 @@
     analysisOf(from).then(function (before) {
       if (serial !== run.serial) return null;
       run.before = before.ok ? before.result : null;
-      return task.run("optimize", from, optsText);
+      return stepwise(task, serial, from, optsText);
     }).then(function (answer) {
       if (!answer || serial !== run.serial || answer.cancelled) return;
       const ms = performance.now() - run.started;
@@ -102,6 +104,39 @@
       show(answer, ms, optsText);
       document.body.dataset.optimiser = "result";
     });
+  }
+
+  /**
+   * Runs the engine's stepwise optimiser (optimizeStart / optimizeStep / optimizeFinish: the same
+   * loop as optimize) one outer step per call, drawing the trace as it grows; falls back to the
+   * one-call optimize when the engine build lacks the steps. Resolves to optimize's answer.
+   */
+  async function stepwise(task, serial, from, optsText) {
+    if (!A.has("optimizeStart")) return task.run("optimize", from, optsText);
+    const started = await task.run("optimizeStart", from, optsText);
+    if (!started || !started.ok) return started;
+    let steps = 0;
+    for (;;) {
+      const st = await task.run("optimizeStep", started.job, 1);
+      if (!st || st.cancelled || serial !== run.serial) return st && st.cancelled ? st : null;
+      if (!st.ok) return st;
+      steps++;
+      showLive(st, steps);
+      if (st.done) break;
+    }
+    return task.run("optimizeFinish", started.job);
+  }
+
+  /** The live trace: the start in progress, its step count and its bound so far. */
+  function showLive(st, steps) {
+    document.body.dataset.optimiserSteps = String(steps);
+    const trace = Array.isArray(st.trace) ? st.trace : [];
+    const cv = $("opt-live");
+    cv.dataset.trace = JSON.stringify(trace);
+    $("opt-elapsed").textContent = "searching… " + ((performance.now() - run.started) / 1000).toFixed(1) + " s · start " +
+      (st.start + 1) + ", step " + st.iteration + ", bound " + F.num(st.complexity);
+    self.SwCharts.line(cv, [{ label: "bound", points: trace.map(function (v, i) { return [i, v]; }) }],
+      { xInteger: true, xLabel: "step", font: A.presenting() ? 15 : 11, lineWidth: A.presenting() ? 3 : 1.8, markerRadius: A.presenting() ? 4.5 : 3 });
   }
 
   /** Cancel: end the worker (the search is one engine call), keep everything else. */

@@ -58,6 +58,26 @@ public final class Exports {
     }
 
     @JSExport
+    public static String optimizeStart(String scenarioJson, String optionsJson) {
+        return JsonFacade.optimizeStart(scenarioJson, optionsJson);
+    }
+
+    @JSExport
+    public static String optimizeStep(int job, int steps) {
+        return JsonFacade.optimizeStep(job, steps);
+    }
+
+    @JSExport
+    public static String optimizeFinish(int job) {
+        return JsonFacade.optimizeFinish(job);
+    }
+
+    @JSExport
+    public static String optimizeCancel(int job) {
+        return JsonFacade.optimizeCancel(job);
+    }
+
+    @JSExport
     public static String build(String requestJson) {
         return JsonFacade.build(requestJson);
     }

@@ -93,6 +93,9 @@ class TuningIT extends PageTestBase {
         assertTrue(note.contains(String.valueOf(r.get("note"))), note);
         assertTrue(page.driver.findElement(By.cssSelector("#sheet-weights .caution")).isDisplayed(), "the caution is shown");
         assertEquals(before, scenarioText(), "nothing changes before accepting");
+        // The trace was drawn while the search ran: one engine step per call (optimizeStep).
+        assertTrue(Integer.parseInt((String) page.js("return document.body.dataset.optimiserSteps || '0';")) >= 1,
+                "live steps shown");
     }
 
     @Test
