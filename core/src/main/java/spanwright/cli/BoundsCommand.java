@@ -124,7 +124,7 @@ final class BoundsCommand {
                 TargetFunction f = randomFunction(n, seed + k);
                 long t = System.nanoTime();
                 GeneralAdversary g = GeneralAdversary.compute(f);
-                out.println("  ADV+-  n = " + n + "  seed " + (seed + k) + "  " + pad(NumberText.sig((System.nanoTime() - t) / 1e9, 3) + " s", 10)
+                out.println("  ADV+-  n = " + n + "  seed " + (seed + k) + "  " + Main.pad(NumberText.sig((System.nanoTime() - t) / 1e9, 3) + " s", 10)
                         + "m = " + g.constraintCount() + ", " + g.iterations() + " iterations, ADV+- in ["
                         + NumberText.sig(g.lower(), 9) + ", " + NumberText.sig(g.upper(), 9) + "]");
             }
@@ -137,20 +137,16 @@ final class BoundsCommand {
             t = System.nanoTime();
             ClassicalMeasures c = ClassicalMeasures.compute(f);
             double tc = (System.nanoTime() - t) / 1e9;
-            out.println("  ADV    n = 10 seed " + (seed + k) + "  " + pad(NumberText.sig(tp, 3) + " s", 10) + "ADV in ["
+            out.println("  ADV    n = 10 seed " + (seed + k) + "  " + Main.pad(NumberText.sig(tp, 3) + " s", 10) + "ADV in ["
                     + NumberText.sig(p.lower(), 6) + ", " + NumberText.sig(p.upper(), 6) + "]");
-            out.println("  D..deg n = 10 seed " + (seed + k) + "  " + pad(NumberText.sig(tc, 3) + " s", 10) + "D = "
+            out.println("  D..deg n = 10 seed " + (seed + k) + "  " + Main.pad(NumberText.sig(tc, 3) + " s", 10) + "D = "
                     + c.decisionTreeDepth() + ", C = " + c.c() + ", s = " + c.sensitivity() + ", bs = " + c.blockSensitivity()
                     + ", deg = " + c.degree());
         }
     }
 
-    private static String pad(String s, int width) {
-        return Main.pad(s, width);
-    }
-
     private static String line(String label, String text) {
-        return "  " + pad(label, 16) + text + "\n";
+        return Main.row(label, 16, text);
     }
 
     /** The human summary: short, aligned, pasteable into notes. */

@@ -150,6 +150,11 @@ public final class Main {
         return Boolean.FALSE.equals(r.correct()) ? WRONG_REDUCTION : OK;
     }
 
+    /** One aligned summary line: two spaces, the label padded to {@code width}, the text. */
+    static String row(String label, int width, String text) {
+        return "  " + pad(label, width) + text + "\n";
+    }
+
     static String pad(String s, int width) {
         StringBuilder sb = new StringBuilder(s);
         while (sb.length() < width) {

@@ -143,16 +143,8 @@ final class SimulateCommand {
         return 0;
     }
 
-    private static String pad(String s, int width) {
-        StringBuilder sb = new StringBuilder(s);
-        while (sb.length() < width) {
-            sb.append(' ');
-        }
-        return sb.toString();
-    }
-
     private static String line(String label, String text) {
-        return "  " + pad(label, 11) + text + "\n";
+        return Main.row(label, 11, text);
     }
 
     private static String num(double v) {
@@ -210,13 +202,13 @@ final class SimulateCommand {
             sb.append(focus(r, r.focus()));
         }
         if (rows) {
-            sb.append('\n').append("  ").append(pad("input", Math.max(6, n + 2))).append("s~t  ")
-                    .append(pad("R or C", 12)).append(pad("phase-0 wt", 12)).append(pad("phase gap", 11))
+            sb.append('\n').append("  ").append(Main.pad("input", Math.max(6, n + 2))).append("s~t  ")
+                    .append(Main.pad("R or C", 12)).append(Main.pad("phase-0 wt", 12)).append(Main.pad("phase gap", 11))
                     .append(r.bits == 0 ? "" : "accept@" + r.bits).append('\n');
             for (InputSimulation x : r.inputs()) {
-                sb.append("  ").append(pad(x.input, Math.max(6, n + 2))).append(x.positive ? "yes  " : "no   ")
-                        .append(pad(num(x.witnessSize), 12)).append(pad(num(x.phaseZeroWeight), 12))
-                        .append(pad(num(x.phaseGap), 11)).append(r.bits == 0 ? "" : num(x.acceptance(r.bits)))
+                sb.append("  ").append(Main.pad(x.input, Math.max(6, n + 2))).append(x.positive ? "yes  " : "no   ")
+                        .append(Main.pad(num(x.witnessSize), 12)).append(Main.pad(num(x.phaseZeroWeight), 12))
+                        .append(Main.pad(num(x.phaseGap), 11)).append(r.bits == 0 ? "" : num(x.acceptance(r.bits)))
                         .append('\n');
             }
         }
@@ -239,7 +231,7 @@ final class SimulateCommand {
         double rest = 0;
         for (int k = 0; k < p.length; k++) {
             if (w[k] >= 1e-12) {
-                sb.append("      |theta| = ").append(pad(num(p[k]), 10)).append(" weight ").append(num(w[k]))
+                sb.append("      |theta| = ").append(Main.pad(num(p[k]), 10)).append(" weight ").append(num(w[k]))
                         .append('\n');
                 shown++;
             } else {

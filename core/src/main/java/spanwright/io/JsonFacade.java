@@ -1,14 +1,12 @@
 package spanwright.io;
 
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisRun;
 import spanwright.domain.InputDomain;
-import spanwright.model.Inputs;
 import spanwright.model.Scenario;
 
 /**
@@ -162,11 +160,7 @@ public final class JsonFacade {
     public static String detail(String scenarioJson, String input) {
         try {
             Scenario sc = ScenarioReader.read(scenarioJson);
-            long mask = Inputs.parse(input, sc.variableCount());
-            if (mask < 0) {
-                return error("input-string", "$.input", "\"" + input + "\" is not an input: write "
-                        + sc.variableCount() + " characters 0 or 1 (" + String.join(", ", sc.variables()) + ")");
-            }
+            long mask = SimulationJson.focus(input, sc, "$.input");
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
             m.putAll(ResultJson.detail(sc, Analysis.detail(sc, mask)));
@@ -575,7 +569,7 @@ public final class JsonFacade {
         return Json.write(m);
     }
 
-    /** Helper for callers that hold a list of inputs. */
+    /** A mutable JSON list of the given items. */
     static List<Object> list(Object... items) {
         List<Object> l = new ArrayList<>();
         for (Object o : items) {

@@ -5,9 +5,6 @@ import java.util.Collections;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.function.Supplier;
-import org.jgrapht.Graph;
-import org.jgrapht.graph.builder.GraphTypeBuilder;
 import spanwright.expr.Expr;
 
 /**
@@ -131,26 +128,5 @@ public final class Scenario {
     public Scenario withEdges(List<Edge> newEdges) {
         return new Scenario(title, notes, variables, functionText, function, promise, vertices, s, t,
                 newEdges, warnings);
-    }
-
-    /**
-     * The whole multigraph as a JGraphT pseudograph on vertex indices, edges as indices into
-     * {@link #edges()} (self-loops included). Built with a supplier, so it is safe under TeaVM.
-     */
-    public Graph<Integer, Integer> toGraph() {
-        int[] next = {0};
-        Supplier<Integer> edgeSupplier = () -> next[0]++;
-        Graph<Integer, Integer> g = GraphTypeBuilder.<Integer, Integer>undirected()
-                .allowingMultipleEdges(true).allowingSelfLoops(true).weighted(true)
-                .edgeSupplier(edgeSupplier).buildGraph();
-        for (int i = 0; i < vertices.size(); i++) {
-            g.addVertex(i);
-        }
-        for (int i = 0; i < edges.size(); i++) {
-            Edge e = edges.get(i);
-            g.addEdge(e.u(), e.v(), i);
-            g.setEdgeWeight(i, e.weight());
-        }
-        return g;
     }
 }
