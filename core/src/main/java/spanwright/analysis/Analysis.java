@@ -1,6 +1,5 @@
 package spanwright.analysis;
 
-import java.util.ArrayList;
 import java.util.List;
 import spanwright.electric.ElectricalNetwork;
 import spanwright.electric.Witness;
@@ -85,34 +84,8 @@ public final class Analysis {
      */
     public static InputDetail detail(Scenario scenario, long mask) {
         boolean[] present = presentEdges(scenario, mask);
-        List<Edge> edges = scenario.edges();
-        List<Integer> keptIndex = new ArrayList<>();
-        for (int i = 0; i < edges.size(); i++) {
-            if (!edges.get(i).isSelfLoop()) {
-                keptIndex.add(i);
-            }
-        }
-        int k = keptIndex.size();
-        int[] u = new int[k];
-        int[] v = new int[k];
-        double[] w = new double[k];
-        boolean[] p = new boolean[k];
-        for (int j = 0; j < k; j++) {
-            Edge e = edges.get(keptIndex.get(j));
-            u[j] = e.u();
-            v[j] = e.v();
-            w[j] = e.weight();
-            p[j] = present[keptIndex.get(j)];
-        }
-        ElectricalNetwork net = new ElectricalNetwork(scenario.vertexCount(), scenario.s(), scenario.t(), u, v, w);
-        Witness wk = net.witness(p);
-        double[] current = new double[edges.size()];
-        double[] energy = new double[edges.size()];
-        for (int j = 0; j < k; j++) {
-            current[keptIndex.get(j)] = wk.current[j];
-            energy[keptIndex.get(j)] = wk.energy[j];
-        }
-        Witness full = new Witness(wk.connected, wk.value, wk.potential, current, energy);
+        // ElectricalNetwork itself gives self-loops no current and no energy
+        Witness full = new ElectricalNetwork(scenario).witness(present);
         Boolean f = scenario.function() == null ? null : scenario.function().eval(mask);
         return new InputDetail(mask, scenario.variableCount(), present, f, full);
     }
