@@ -249,8 +249,14 @@
     this.worker.postMessage({ type: "analyze", id: id, scenario: scenarioText, withInputs: true });
     return id;
   };
+  /** Cancels an analysis job at once: its onDone sees {type:"cancelled"} now, and anything the
+   *  worker still sends for it (progress, or a result that was already on its way) is dropped. */
   EngineBridge.prototype.cancel = function (id) {
     this.worker.postMessage({ type: "cancel", id: id });
+    const job = this.jobs.get(id);
+    if (!job) return;
+    this.jobs.delete(id);
+    job.onDone({ type: "cancelled", id: id });
   };
   EngineBridge.prototype.terminate = function () { this.worker.terminate(); };
   EngineBridge.prototype.has = function (fn) { return this.functions.indexOf(fn) >= 0; };
