@@ -1,9 +1,9 @@
 /*
  * The "Weights" sheet: runs the engine's weight optimiser (JsonFacade.optimize) in a worker of
  * its own, shows progress with Cancel, then a before/after comparison with one click to accept
- * (an undoable edit) or discard. The engine's optimiser is one blocking call, so Cancel
- * terminates that worker; the main worker and the user's work are untouched. Every number shown
- * is the engine's: "before" from its analysis of the same scenario text, "after" from its
+ * (an undoable edit) or discard. The search runs one engine step per call: "Stop, keep best"
+ * ends it after the step in progress with the best weights so far; Cancel terminates the worker.
+ * The main worker and the user's work are untouched. Every number shown is the engine's: "before" from its analysis of the same scenario text, "after" from its
  * optimisation result.
  */
 (function () {
@@ -20,7 +20,8 @@
     fromText: null,   // scenario text the search started from
     fromObj: null,    // the same, parsed
     before: null,     // engine analysis of that text
-    answer: null      // the engine's optimisation answer
+    answer: null,     // the engine's optimisation answer
+    stop: false       // "Stop, keep best" pressed: end after the step in progress
   };
 
   function setNumber(id, v) {
@@ -57,6 +58,8 @@
     $("opt-run").disabled = on;
     $("opt-progress").hidden = !on;
     document.body.dataset.optimiser = on ? "running" : (run.answer ? "result" : "idle");
+    $("opt-stop").disabled = !on;
+    if (on) { run.stop = false; $("opt-stop").hidden = !A.has("optimizeStop"); }
     clearInterval(run.timer);
     if (on) {
       document.body.dataset.optimiserSteps = "0";
@@ -123,6 +126,7 @@
       steps++;
       showLive(st, steps);
       if (st.done) break;
+      if (run.stop && A.has("optimizeStop")) return task.run("optimizeStop", started.job);
     }
     return task.run("optimizeFinish", started.job);
   }
@@ -150,7 +154,8 @@
   }
 
   function statusText(r) {
-    const what = { "converged": "converged", "budget-reached": "stopped at its budget", "stalled": "stalled (no further descent found)" }[r.status] || String(r.status);
+    const what = { "converged": "converged", "budget-reached": "stopped at its budget", "stalled": "stalled (no further descent found)",
+      "cancelled": "stopped by you (the best point found so far; the certificate below holds for it)" }[r.status] || String(r.status);
     return "Search " + what + " after " + F.count(r.iterations) + " iteration" + (r.iterations === 1 ? "" : "s") + " (" +
       F.count(r.evaluations) + " network solves), best of " + F.count(r.starts) + " start" + (r.starts === 1 ? "" : "s") + ".";
   }
@@ -247,6 +252,12 @@
 
   $("opt-run").addEventListener("click", start);
   $("opt-cancel").addEventListener("click", function () { cancel(false); });
+  $("opt-stop").addEventListener("click", function () {
+    if (document.body.dataset.optimiser !== "running") return;
+    run.stop = true;
+    $("opt-stop").disabled = true;
+    $("opt-elapsed").textContent = "stopping after this step…";
+  });
   $("opt-accept").addEventListener("click", accept);
   $("opt-discard").addEventListener("click", discard);
   A.on("scenario", updateActions);

@@ -239,8 +239,8 @@ public final class JsonFacade {
      * optimizeStep(ID, steps)} runs up to {@code steps} outer steps → {@code {"ok":true,"done",
      * "start","iteration","complexity","trace":[…]}} (the trace of the start in progress);
      * {@code optimizeFinish(ID)} → exactly what {@link #optimize} answers for the same input (it
-     * is the same loop); {@code optimizeCancel(ID)} stops at the best point so far and forgets the
-     * job. At most {@link #MAX_JOBS} unfinished jobs are kept.
+     * is the same loop); {@link #optimizeStop}(ID) ends the search now and answers the same way
+     * for the best point so far (status cancelled); {@code optimizeCancel(ID)} forgets the job. At most {@link #MAX_JOBS} unfinished jobs are kept.
      */
     public static String optimizeStart(String scenarioJson, String optionsJson) {
         try {
@@ -294,12 +294,28 @@ public final class JsonFacade {
 
     /** See {@link #optimizeStart}. */
     public static String optimizeFinish(int job) {
+        return endOptimization(job, false);
+    }
+
+    /**
+     * See {@link #optimizeStart}: ends the search now, at the best point found so far, and answers
+     * like {@link #optimizeFinish} with status {@code cancelled} (the weights, the bound and the
+     * certificate of that point), so a user who stops a long search keeps what it found.
+     */
+    public static String optimizeStop(int job) {
+        return endOptimization(job, true);
+    }
+
+    private static String endOptimization(int job, boolean stopNow) {
         Object[] j = OPT_JOBS.remove(job);
         if (j == null) {
             return error("no-job", "$", "no optimisation job " + job + " (finished or cancelled)");
         }
         try {
             spanwright.optimize.WeightOptimizer.Run run = (spanwright.optimize.WeightOptimizer.Run) j[0];
+            if (stopNow) {
+                run.cancel();
+            }
             while (!run.step()) {
                 // run to the end
             }

@@ -40,4 +40,39 @@ class JsonFacadeOptimizeStepsTest {
             assertEquals("no-job", ((Map<String, Object>) gone.get("error")).get("code"));
         }
     }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void stoppingEarlyKeepsTheBestPointSoFarAndItsNumbersHold() throws Exception {
+        // Two checks of the stopped result: the optimiser's own contract (status cancelled, the
+        // bound never above the start or the last step shown; common practice, no source) and an
+        // independent one: a fresh analysis of the returned scenario (the network solver on the
+        // written weights) gives the same W+, W- and bound, and its max R * max C = bound^2
+        // (the definition of the bound).
+        String text = Files.readString(Path.of("..", "scenarios", "default.json"));
+        Map<String, Object> start = (Map<String, Object>) Json.parse(JsonFacade.optimizeStart(text, "{\"starts\": 3, \"seed\": 5}"));
+        int job = ((Number) start.get("job")).intValue();
+        double initial = ((Number) start.get("initialComplexity")).doubleValue();
+        Map<String, Object> step = null;
+        for (int k = 0; k < 2; k++) {
+            step = (Map<String, Object>) Json.parse(JsonFacade.optimizeStep(job, 1));
+        }
+        assertEquals(Boolean.FALSE, step.get("done"), "the search is still running after two steps");
+        Map<String, Object> stopped = (Map<String, Object>) Json.parse(JsonFacade.optimizeStop(job));
+        assertEquals(Boolean.TRUE, stopped.get("ok"), stopped.toString());
+        Map<String, Object> r = (Map<String, Object>) stopped.get("result");
+        assertEquals("cancelled", r.get("status"));
+        double bound = ((Number) r.get("complexity")).doubleValue();
+        assertTrue(bound <= initial * (1 + 1e-12), bound + " vs start " + initial);
+        assertTrue(bound <= ((Number) step.get("complexity")).doubleValue() * (1 + 1e-12));
+        Object sc = stopped.get("scenario");
+        String written = sc instanceof String ? (String) sc : Json.write(sc);
+        Map<String, Object> again = (Map<String, Object>) ((Map<String, Object>) Json.parse(JsonFacade.analyze(written, false))).get("result");
+        double fresh = ((Number) again.get("complexity")).doubleValue();
+        assertEquals(bound, fresh, 1e-9 * bound, "fresh analysis of the stopped weights");
+        double wPlus = ((Number) ((Map<String, Object>) again.get("positive")).get("maxResistance")).doubleValue();
+        double wMinus = ((Number) ((Map<String, Object>) again.get("negative")).get("maxCapacitance")).doubleValue();
+        assertEquals(fresh * fresh, wPlus * wMinus, 1e-9 * fresh * fresh);
+        assertEquals("no-job", ((Map<String, Object>) ((Map<String, Object>) Json.parse(JsonFacade.optimizeStep(job, 1))).get("error")).get("code"));
+    }
 }

@@ -73,6 +73,11 @@ public final class Exports {
     }
 
     @JSExport
+    public static String optimizeStop(int job) {
+        return JsonFacade.optimizeStop(job);
+    }
+
+    @JSExport
     public static String optimizeCancel(int job) {
         return JsonFacade.optimizeCancel(job);
     }
