@@ -950,6 +950,11 @@
   $("export-png").addEventListener("click", function () {
     F.download(F.fileName(state.scenario.title, ".png"), view.png());
   });
+  $("export-svg").addEventListener("click", function () {
+    const text = view.svg(state.scenario.title);
+    $("export-svg").dataset.chars = String(text.length);
+    F.download(F.fileName(state.scenario.title, ".svg"), new Blob([text], { type: "image/svg+xml" }));
+  });
 
   const gallery = (self.SpanwrightGallery || []).map(function (g) {
     let title = g.file;

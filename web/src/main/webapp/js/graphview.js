@@ -317,5 +317,94 @@
     return this.cy.png({ full: true, scale: 2, bg: "#ffffff" });
   };
 
+  function xml(t) {
+    return String(t).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
+  }
+  function px(v, fallback) { const x = parseFloat(v); return isFinite(x) ? x : fallback; }
+  function r2(v) { return Math.round(v * 100) / 100; }
+
+  /** Text lines centred in a label box taken from the drawing itself (model coordinates). */
+  function svgLabel(out, text, box, fontPx, color, weight, background) {
+    const lines = String(text || "").split("\n");
+    if (!text || !(box.w > 0)) return;
+    if (background) out.push('<rect x="' + r2(box.x1) + '" y="' + r2(box.y1) + '" width="' + r2(box.w) + '" height="' + r2(box.h) +
+      '" fill="#ffffff" fill-opacity="0.85" class="label-back"/>');
+    const lh = box.h / lines.length;
+    lines.forEach(function (line, i) {
+      out.push('<text x="' + r2((box.x1 + box.x2) / 2) + '" y="' + r2(box.y1 + lh * (i + 0.5)) + '" font-size="' + r2(fontPx) +
+        '" font-family="system-ui, sans-serif" text-anchor="middle" dominant-baseline="central" fill="' + xml(color) + '"' +
+        (weight === "bold" ? ' font-weight="bold"' : "") + ">" + xml(line) + "</text>");
+    });
+  }
+
+  function arrowHead(out, tip, from, size, color) {
+    const dx = tip.x - from.x, dy = tip.y - from.y, len = Math.hypot(dx, dy) || 1;
+    const ux = dx / len, uy = dy / len;
+    const bx = tip.x - ux * size, by = tip.y - uy * size;
+    out.push('<polygon class="arrow" points="' + [tip.x, tip.y, bx - uy * size * 0.5, by + ux * size * 0.5, bx + uy * size * 0.5, by - ux * size * 0.5].map(r2).join(" ") +
+      '" fill="' + xml(color) + '"/>');
+  }
+
+  /**
+   * The drawing as it is shown (focus, currents, potentials, labels) as an SVG document for a
+   * paper or slides. Written here from Cytoscape's own geometry (endpoints, control points, label
+   * boxes): Cytoscape.js has no SVG output of its own and the one SVG extension is GPL-licensed.
+   * Every string from the scenario is escaped, so names stay text.
+   */
+  GraphView.prototype.svg = function (title) {
+    const cy = this.cy;
+    const bb = cy.elements().boundingBox({ includeLabels: true, includeOverlays: false });
+    const pad = 12;
+    const x0 = bb.x1 - pad, y0 = bb.y1 - pad, w = Math.max(1, bb.w + 2 * pad), h = Math.max(1, bb.h + 2 * pad);
+    const out = [];
+    out.push('<svg xmlns="http://www.w3.org/2000/svg" viewBox="' + [x0, y0, w, h].map(r2).join(" ") + '" width="' + r2(w) + '" height="' + r2(h) + '">');
+    if (title) out.push("<title>" + xml(title) + "</title>");
+    out.push('<rect x="' + r2(x0) + '" y="' + r2(y0) + '" width="' + r2(w) + '" height="' + r2(h) + '" fill="#ffffff" class="background"/>');
+    const labels = [];
+    cy.edges().forEach(function (e) {
+      const a = e.sourceEndpoint(), b = e.targetEndpoint();
+      const cps = (e.style("curve-style") === "bezier" && e.controlPoints && e.controlPoints()) || [];
+      let d = "M " + r2(a.x) + " " + r2(a.y);
+      if (cps.length === 1) d += " Q " + r2(cps[0].x) + " " + r2(cps[0].y) + " " + r2(b.x) + " " + r2(b.y);
+      else if (cps.length > 1) {
+        // Cytoscape joins several control points by quadratic pieces through their midpoints.
+        for (let i = 0; i < cps.length - 1; i++) {
+          const m = { x: (cps[i].x + cps[i + 1].x) / 2, y: (cps[i].y + cps[i + 1].y) / 2 };
+          d += " Q " + r2(cps[i].x) + " " + r2(cps[i].y) + " " + r2(m.x) + " " + r2(m.y);
+        }
+        const last = cps[cps.length - 1];
+        d += " Q " + r2(last.x) + " " + r2(last.y) + " " + r2(b.x) + " " + r2(b.y);
+      } else d += " L " + r2(b.x) + " " + r2(b.y);
+      const color = e.style("line-color");
+      const width = px(e.style("width"), 2);
+      const dashed = e.style("line-style") === "dashed";
+      out.push('<path class="edge' + (dashed ? " absent" : "") + '" d="' + d + '" fill="none" stroke="' + xml(color) + '" stroke-width="' + r2(width) + '"' +
+        (dashed ? ' stroke-dasharray="' + r2(3 * width) + " " + r2(2.5 * width) + '"' : "") + '><title>' + xml(e.id() + ": " + (e.data("label") || "")) + "</title></path>");
+      const size = Math.max(6, width * 3 * px(e.style("arrow-scale"), 1));
+      if (e.style("target-arrow-shape") === "triangle") arrowHead(out, b, cps.length ? cps[cps.length - 1] : a, size, e.style("target-arrow-color"));
+      if (e.style("source-arrow-shape") === "triangle") arrowHead(out, a, cps.length ? cps[0] : b, size, e.style("source-arrow-color"));
+      if (e.data("shown")) labels.push([e.data("shown"), e.boundingBox(EDGE_LABEL_BOX), px(e.style("font-size"), 12), e.style("color"), "normal", true]);
+    });
+    cy.nodes().forEach(function (n) {
+      const p = n.position(), nw = n.width(), nh = n.height();
+      const fill = xml(n.style("background-color")), stroke = xml(n.style("border-color")), bw = r2(px(n.style("border-width"), 1.5));
+      const shape = n.style("shape");
+      const role = n.hasClass("role-s") ? " role-s" : n.hasClass("role-t") ? " role-t" : "";
+      const common = '" class="vertex' + role + '" fill="' + fill + '" stroke="' + stroke + '" stroke-width="' + bw + '"';
+      if (shape === "diamond") {
+        out.push('<polygon points="' + [p.x, p.y - nh / 2, p.x + nw / 2, p.y, p.x, p.y + nh / 2, p.x - nw / 2, p.y].map(r2).join(" ") + common + "/>");
+      } else if (shape === "rectangle") {
+        out.push('<rect x="' + r2(p.x - nw / 2) + '" y="' + r2(p.y - nh / 2) + '" width="' + r2(nw) + '" height="' + r2(nh) + common + "/>");
+      } else {
+        out.push('<ellipse cx="' + r2(p.x) + '" cy="' + r2(p.y) + '" rx="' + r2(nw / 2) + '" ry="' + r2(nh / 2) + common + "/>");
+      }
+      if (n.data("label")) labels.push([n.data("label"), n.boundingBox(NODE_LABEL_BOX), px(n.style("font-size"), 13), n.style("color"),
+        n.style("font-weight"), n.hasClass("wide-label")]);
+    });
+    labels.forEach(function (l) { svgLabel(out, l[0], l[1], l[2], l[3], l[4], l[5]); });
+    out.push("</svg>");
+    return out.join("\n");
+  };
+
   self.SwGraphView = GraphView;
 })();

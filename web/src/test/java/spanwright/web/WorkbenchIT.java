@@ -229,6 +229,79 @@ class WorkbenchIT extends PageTestBase {
         assertEquals(work, page.js("return window.Spanwright.scenarioText();"));
     }
 
+    /** Clicks "Drawing SVG" and returns the document the page would download. */
+    private String exportedSvg() {
+        page.js("window.__svgText = null; window.SwFormat.download = function (name, blob) {"
+                + " window.__svgName = name; blob.text().then(function (t) { window.__svgText = t; }); };");
+        page.$("export-svg").click();
+        page.waitFor("SVG produced", WAIT, () -> page.js("return window.__svgText;") != null);
+        return (String) page.js("return window.__svgText;");
+    }
+
+    private static org.w3c.dom.Document parseXml(String text) throws Exception {
+        // Reference parser: the JDK's own XML parser (javax.xml), namespace-aware, no DTDs.
+        javax.xml.parsers.DocumentBuilderFactory f = javax.xml.parsers.DocumentBuilderFactory.newInstance();
+        f.setNamespaceAware(true);
+        f.setFeature("http://apache.org/xml/features/disallow-doctype-decl", true);
+        return f.newDocumentBuilder().parse(new java.io.ByteArrayInputStream(text.getBytes(StandardCharsets.UTF_8)));
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void theDrawingExportsAsSvgWithTheFocusedInput() throws Exception {
+        String text = scenarioFile("default.json");
+        Map<String, Object> expected = jvmResult(text);
+        page.openFresh(null);
+        page.$("worst-neg").click();
+        String x = worst(expected, "negative");
+        page.waitFor("worst negative drawn", WAIT, () -> x.equals(page.js("return document.body.dataset.focusDrawn;")));
+        String svgText = exportedSvg();
+        Path shots = Paths.get("target", "screenshots");
+        Files.createDirectories(shots);
+        Files.writeString(shots.resolve("network-worst-negative.svg"), svgText, StandardCharsets.UTF_8);
+        org.w3c.dom.Document svg = parseXml(svgText);
+        assertEquals("svg", svg.getDocumentElement().getLocalName());
+        assertEquals("http://www.w3.org/2000/svg", svg.getDocumentElement().getNamespaceURI());
+        Map<String, Object> doc = (Map<String, Object>) Json.parse(text);
+        List<Object> vars = (List<Object>) doc.get("variables");
+        Map<String, Object> graph = (Map<String, Object>) doc.get("graph");
+        List<Object> edges = (List<Object>) graph.get("edges");
+        List<Object> vertices = (List<Object>) graph.get("vertices");
+        // One path per edge, one shape per vertex; s a diamond (4-corner polygon), t a square.
+        assertEquals(edges.size(), withClass(svg, "edge", null).size(), "edge paths");
+        assertEquals(vertices.size(), withClass(svg, "vertex", null).size(), "vertex shapes");
+        assertEquals(List.of("polygon"), withClass(svg, "role-s", null));
+        assertEquals(List.of("rect"), withClass(svg, "role-t", null));
+        // Dashed = absent in G(x): evaluated here from the literals (first variable = first digit).
+        int absent = 0;
+        for (Object o : edges) {
+            String when = String.valueOf(((Map<String, Object>) o).get("when"));
+            boolean neg = when.startsWith("!");
+            String v = neg ? when.substring(1) : when;
+            boolean present = when.equals("1") || ((x.charAt(vars.indexOf(v)) == '1') != neg);
+            if (!present) absent++;
+        }
+        assertTrue(absent > 0, "a negative input has absent edges");
+        assertEquals(absent, withClass(svg, "absent", "stroke-dasharray").size(), "dashed edges are the absent ones of " + x);
+        String allText = svg.getDocumentElement().getTextContent();
+        for (Object v : vertices) {
+            assertTrue(allText.contains(String.valueOf(((Map<String, Object>) v).get("id"))), "vertex label " + v);
+        }
+    }
+
+    /** Tag names of the SVG elements whose class list has {@code cls} (and the attribute, if given). */
+    private static List<String> withClass(org.w3c.dom.Document svg, String cls, String attribute) {
+        List<String> out = new java.util.ArrayList<>();
+        org.w3c.dom.NodeList all = svg.getElementsByTagNameNS("*", "*");
+        for (int i = 0; i < all.getLength(); i++) {
+            org.w3c.dom.Element e = (org.w3c.dom.Element) all.item(i);
+            if (java.util.Arrays.asList(e.getAttribute("class").split(" ")).contains(cls) && (attribute == null || e.hasAttribute(attribute))) {
+                out.add(e.getLocalName());
+            }
+        }
+        return out;
+    }
+
     @Test
     void hostileStringsStayInert() throws IOException {
         String img = "<img src=x onerror=\\\"window.__pwned=1\\\">";
@@ -259,6 +332,16 @@ class WorkbenchIT extends PageTestBase {
         assertEquals(null, page.js("return window.__pwned === undefined ? null : window.__pwned;"), "no script ran");
         assertEquals(imgs, ((Number) page.js("return document.images.length;")).intValue(), "no <img> was created");
         assertEquals(scripts, ((Number) page.js("return document.scripts.length;")).intValue(), "no <script> was created");
+        // The SVG export keeps the names as text: it parses, has no script element or event
+        // attribute, and the hostile strings are in its text content.
+        try {
+            org.w3c.dom.Document svg = parseXml(exportedSvg());
+            assertEquals(0, svg.getElementsByTagNameNS("*", "script").getLength(), "no <script> in the SVG");
+            assertEquals(0, svg.getElementsByTagNameNS("*", "img").getLength(), "no <img> in the SVG");
+            assertTrue(svg.getDocumentElement().getTextContent().contains("<img src=x onerror="), "the name is text");
+        } catch (Exception e) {
+            throw new AssertionError("the SVG export of hostile names must be well-formed XML", e);
+        }
         Files.deleteIfExists(file);
     }
 
