@@ -140,19 +140,28 @@ class TuningIT extends PageTestBase {
         WorkbenchIT.assertClose(num(original.get("complexity")), page.value("sum-bound"), "bound after undo");
     }
 
+    /**
+     * Opens a 2^18-input ladder (our own bench scenario) and starts a search with 50 starts (the
+     * sheet's maximum), which runs far longer than a click takes. Returns the scenario text.
+     */
+    private String startLongSearch(java.nio.file.Path file) throws IOException {
+        java.nio.file.Files.writeString(file, BenchIT.ladder(9));
+        int serial = page.serial();
+        page.$("open-file").sendKeys(file.toString());
+        page.waitForAnalysis(serial, WAIT);
+        String work = scenarioText();
+        page.$("tab-weights").click();
+        page.waitFor("optimiser available", WAIT, () -> page.$("opt-run").isEnabled());
+        page.$("opt-starts").sendKeys(Keys.chord(Keys.CONTROL, "a"), "50");
+        page.$("opt-run").click();
+        return work;
+    }
+
     @Test
     void cancelEndsTheSearchAndKeepsTheWork() throws IOException {
-        // A 2^18-input ladder (our own bench scenario) keeps the optimiser busy long enough to cancel.
         java.nio.file.Path file = java.nio.file.Files.createTempFile("ladder18-", ".json");
-        java.nio.file.Files.writeString(file, BenchIT.ladder(9));
         try {
-            int serial = page.serial();
-            page.$("open-file").sendKeys(file.toString());
-            page.waitForAnalysis(serial, WAIT);
-            String work = scenarioText();
-            page.$("tab-weights").click();
-            page.waitFor("optimiser available", WAIT, () -> page.$("opt-run").isEnabled());
-            page.$("opt-run").click();
+            String work = startLongSearch(file);
             page.waitFor("progress shown", WAIT, () -> page.$("opt-progress").isDisplayed());
             page.$("opt-cancel").click();
             page.waitFor("cancelled", WAIT, () -> "cancelled".equals(page.js("return document.body.dataset.optimiser;")));
@@ -163,7 +172,7 @@ class TuningIT extends PageTestBase {
             page.$("tab-summary").click();
             page.js("document.querySelectorAll('.editors details').forEach(function(d){d.open=true;});");
             WebElement weight = page.driver.findElements(By.cssSelector("#edge-table .edge-weight")).get(0);
-            serial = page.serial();
+            int serial = page.serial();
             weight.sendKeys(Keys.chord(Keys.CONTROL, "a"), "2", Keys.TAB);
             page.waitForAnalysis(serial, WAIT);
             assertEquals("ready", page.js("return document.body.dataset.analysis;"));
@@ -174,20 +183,10 @@ class TuningIT extends PageTestBase {
 
     @Test
     void stopKeepsTheBestWeightsSoFar() throws IOException {
-        // The 2^18-input ladder with 50 starts keeps the search going long enough to press Stop.
         java.nio.file.Path file = java.nio.file.Files.createTempFile("ladder18s-", ".json");
-        java.nio.file.Files.writeString(file, BenchIT.ladder(9));
         try {
-            int serial = page.serial();
-            page.$("open-file").sendKeys(file.toString());
-            page.waitForAnalysis(serial, WAIT);
-            String work = scenarioText();
-            double start = page.value("sum-bound");
-            page.$("tab-weights").click();
-            page.waitFor("optimiser available", WAIT, () -> page.$("opt-run").isEnabled());
-            // 50 starts (the sheet's maximum): the search runs far longer than the click takes.
-            page.$("opt-starts").sendKeys(Keys.chord(Keys.CONTROL, "a"), "50");
-            page.$("opt-run").click();
+            String work = startLongSearch(file);
+            double start = num(WorkbenchIT.jvmResult(work).get("complexity"));
             page.waitFor("first step drawn", WAIT, () -> !"0".equals(String.valueOf(page.js("return document.body.dataset.optimiserSteps || '0';"))));
             page.$("opt-stop").click();
             page.waitFor("stopped with a result", WAIT, () -> "result".equals(page.js("return document.body.dataset.optimiser;")));
@@ -197,7 +196,7 @@ class TuningIT extends PageTestBase {
             double after = page.value("opt-after-bound");
             // The optimiser never returns a point worse than its start (monotone descent).
             assertTrue(after <= start * (1 + OPT_TOL), after + " vs " + start);
-            serial = page.serial();
+            int serial = page.serial();
             page.$("opt-accept").click();
             page.waitForAnalysis(serial, WAIT);
             // Source: the JVM analysis of the accepted text (JsonFacade.analyze) and the page's own
