@@ -339,11 +339,7 @@ public final class JsonFacade {
     /** Parses optimiser options (JSON object, all keys optional). */
     public static spanwright.optimize.OptimizerOptions optimizerOptions(String optionsJson) {
         spanwright.optimize.OptimizerOptions opt = spanwright.optimize.OptimizerOptions.defaults();
-        if (optionsJson == null || optionsJson.trim().isEmpty()) {
-            return opt;
-        }
-        Map<String, Object> o = ScenarioReader.object(Json.parse(optionsJson), "$options");
-        for (Map.Entry<String, Object> e : o.entrySet()) {
+        for (Map.Entry<String, Object> e : ScenarioReader.options(optionsJson).entrySet()) {
             String path = "$options." + e.getKey();
             Object v = e.getValue();
             if (e.getKey().equals("tie")) {
@@ -367,8 +363,7 @@ public final class JsonFacade {
                 case "iterations": opt = opt.withMaxIterations((int) Math.min(k, 100000)); break;
                 case "seconds": opt = opt.withMaxMillis(k * 1000); break;
                 default:
-                    throw new ScenarioException("option", path, "unknown option \"" + e.getKey()
-                            + "\" (known: starts, seed, iterations, seconds, tie)");
+                    throw ScenarioReader.unknownOption(e.getKey(), "starts, seed, iterations, seconds, tie");
             }
         }
         return opt;

@@ -360,6 +360,19 @@ public final class ScenarioReader {
     // ---------------------------------------------------------------- typed access
 
     @SuppressWarnings("unchecked")
+    /** The entries of an options object (path {@code $options}); none for null or blank text. */
+    static Map<String, Object> options(String optionsJson) {
+        if (optionsJson == null || optionsJson.trim().isEmpty()) {
+            return java.util.Collections.emptyMap();
+        }
+        return object(Json.parse(optionsJson), "$options");
+    }
+
+    /** The error for an option key nobody knows, naming the ones that exist. */
+    static ScenarioException unknownOption(String key, String known) {
+        return new ScenarioException("option", "$options." + key, "unknown option \"" + key + "\" (known: " + known + ")");
+    }
+
     static Map<String, Object> object(Object o, String path) {
         if (!(o instanceof Map)) {
             throw new ScenarioException("type", path, "expected an object {…}, got " + show(o));

@@ -34,11 +34,7 @@ public final class SimulationJson {
      */
     public static SimulationOptions options(String optionsJson, Scenario scenario) {
         SimulationOptions opt = SimulationOptions.defaults();
-        if (optionsJson == null || optionsJson.trim().isEmpty()) {
-            return opt;
-        }
-        Map<String, Object> o = ScenarioReader.object(Json.parse(optionsJson), "$options");
-        for (Map.Entry<String, Object> e : o.entrySet()) {
+        for (Map.Entry<String, Object> e : ScenarioReader.options(optionsJson).entrySet()) {
             String path = "$options." + e.getKey();
             Object v = e.getValue();
             switch (e.getKey()) {
@@ -59,8 +55,7 @@ public final class SimulationJson {
                     opt = opt.withFocus(focus(ScenarioReader.string(v, path), scenario, path));
                     break;
                 default:
-                    throw new ScenarioException("option", path, "unknown option \"" + e.getKey()
-                            + "\" (known: epsilon, alpha2, input)");
+                    throw ScenarioReader.unknownOption(e.getKey(), "epsilon, alpha2, input");
             }
         }
         return opt;
