@@ -229,7 +229,7 @@ class WorkbenchIT extends PageTestBase {
         assertEquals(work, page.js("return window.Spanwright.scenarioText();"));
     }
 
-    /** Clicks "Drawing SVG" and returns the document the page would download. */
+    /** Clicks the drawing's SVG button and returns the document the page would download. */
     private String exportedSvg() {
         page.js("window.__svgText = null; window.SwFormat.download = function (name, blob) {"
                 + " window.__svgName = name; blob.text().then(function (t) { window.__svgText = t; }); };");
