@@ -20,6 +20,11 @@ import spanwright.sweep.SweepTables;
 final class SweepFacade {
     /** At most this many unfinished size jobs are kept; starting another drops the oldest. */
     static final int MAX_JOBS = 4;
+    /**
+     * The page's sweep options where the request leaves a key out: the engine's defaults, but ADV±
+     * only up to 6 variables (the page's limit for the SDP; beyond it one size takes minutes).
+     */
+    static final SweepOptions PAGE_DEFAULTS = SweepOptions.defaults().withBounds(true, 6);
     private static final Map<Integer, Job> JOBS = new LinkedHashMap<>();
     private static int nextJob = 1;
 
@@ -52,8 +57,7 @@ final class SweepFacade {
 
     static SweepOptions options(Map<String, Object> request) {
         Object o = request.get("options");
-        return o == null || o == Json.NULL ? SweepOptions.defaults().withBounds(true, 6)
-                : SweepDocument.options(o, "$.options");
+        return o == null || o == Json.NULL ? PAGE_DEFAULTS : SweepDocument.options(o, "$.options", PAGE_DEFAULTS);
     }
 
     static int fit(Map<String, Object> request, String key) {
@@ -97,7 +101,7 @@ final class SweepFacade {
         }
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("families", list);
-        m.put("sweepOptions", SweepOptions.defaults().withBounds(true, 6).toJson());
+        m.put("sweepOptions", PAGE_DEFAULTS.toJson());
         return m;
     }
 

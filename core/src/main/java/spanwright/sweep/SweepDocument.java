@@ -379,10 +379,15 @@ public final class SweepDocument {
         return result(family, sizes, options, rows, fitFrom, fitLast, run);
     }
 
-    /** Options from their JSON (as written by {@link SweepOptions#toJson}). */
+    /** Options from their JSON (as written by {@link SweepOptions#toJson}); absent keys keep {@link SweepOptions#defaults()}. */
     public static SweepOptions options(Object json, String path) {
+        return options(json, path, SweepOptions.defaults());
+    }
+
+    /** Options from their JSON; absent keys keep their values in {@code base}. */
+    public static SweepOptions options(Object json, String path, SweepOptions base) {
         Map<String, Object> m = object(json, path);
-        SweepOptions o = SweepOptions.defaults();
+        SweepOptions o = base;
         for (Map.Entry<String, Object> e : m.entrySet()) {
             String p = path + "." + e.getKey();
             Object v = e.getValue();

@@ -67,6 +67,26 @@ class JsonFacadeSweepTest {
     }
 
     @Test
+    @SuppressWarnings("unchecked")
+    void thePagesBoundLimitHoldsWhereTheRequestIsSilent() {
+        // The page sends only the fields the user filled in; ADV± must still stop at the page's 6
+        // variables (an 8-variable SDP takes minutes), whether options is absent, empty or partial.
+        for (String options : new String[] {"", ", \"options\": {}", ", \"options\": {\"optimizeIterations\": 5}"}) {
+            Map<String, Object> once = parse(JsonFacade.sweep("{\"family\": {\"family\": \"or\"}, \"sizes\": \"2\""
+                    + options + "}"));
+            assertEquals(true, once.get("ok"), once.toString());
+            Map<String, Object> opts = (Map<String, Object>) ((Map<String, Object>) once.get("result")).get("options");
+            assertEquals(6.0, opts.get("boundsMaxVariables"), options);
+        }
+        Map<String, Object> given = parse(JsonFacade.sweep("{\"family\": {\"family\": \"or\"}, \"sizes\": \"2\","
+                + " \"options\": {\"boundsMaxVariables\": 3}}"));
+        assertEquals(3.0, ((Map<String, Object>) ((Map<String, Object>) given.get("result")).get("options"))
+                .get("boundsMaxVariables"));
+        Map<String, Object> fams = parse(JsonFacade.sweepFamilies());
+        assertEquals(6.0, ((Map<String, Object>) fams.get("sweepOptions")).get("boundsMaxVariables"));
+    }
+
+    @Test
     void badRequestsNameThePath() {
         Map<String, Object> e = parse(JsonFacade.sweepStart("{\"family\": {\"family\": \"spiral\"}, \"size\": 3}"));
         assertEquals(false, e.get("ok"));
