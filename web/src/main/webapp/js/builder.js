@@ -164,15 +164,46 @@
     if (st.view) st.view.cy.elements().remove();
   }
 
+  // Readable names for the builders' statistics (the engine's JSON keys stay in data-stat).
+  const STAT_LABELS = {
+    vertices: "vertices", edges: "edges", variables: "variables",
+    strategy: "tree shape", order: "query order", output: "output", depth: "depth T (worst-case queries)",
+    wrongGuesses: "guess rank G (most wrong guesses on a path)",
+    treeDecisionVertices: "tree: decision vertices", treeVertices: "tree: vertices", treeEdges: "tree: edges",
+    diagramDecisionVertices: "diagram: decision vertices", diagramVertices: "diagram: vertices", diagramEdges: "diagram: edges",
+    weights: "weights", boundPositive: "W₊ at most (guaranteed)", boundNegative: "W₋ at most (guaranteed)",
+    leaves: "leaves (literal occurrences)", readOnce: "read-once",
+    predictedPositive: "predicted W₊", predictedNegative: "predicted W₋", predictedComplexity: "predicted bound",
+    outerPositive: "outer W₊", outerNegative: "outer W₋", innerPositive: "inner W₊", innerNegative: "inner W₋",
+    negatedInnerPositive: "negated inner W₊", negatedInnerNegative: "negated inner W₋",
+    productBound: "W₊·W₋ at most (outer × inner)", gadgets: "inner copies",
+    family: "host family", size: "size", s: "s", t: "t", paths: "simple s–t paths",
+    functionOmitted: "function omitted", promise: "promise"
+  };
+
+  function statLabel(key) {
+    if (Object.prototype.hasOwnProperty.call(STAT_LABELS, key)) return STAT_LABELS[key];
+    return String(key).replace(/([a-z])([A-Z])/g, "$1 $2").toLowerCase();
+  }
+
+  function statText(value) {
+    if (typeof value === "number") return F.num(value);
+    if (typeof value === "boolean") return value ? "yes" : "no";
+    if (value === null || value === undefined) return "—";
+    if (Array.isArray(value)) return value.map(statText).join(value.every(function (x) { return typeof x === "number"; }) ? " × " : ", ");
+    if (typeof value === "object") return JSON.stringify(value);
+    return String(value);
+  }
+
   function statLine(key, value) {
     const div = document.createElement("div");
     const k = document.createElement("span");
     k.className = "stat-key";
-    k.textContent = key;
+    k.textContent = statLabel(key);
     const v = document.createElement("span");
     v.className = "stat-value";
     v.dataset.stat = key;
-    v.textContent = typeof value === "number" ? F.num(value) : typeof value === "object" && value !== null ? JSON.stringify(value) : String(value);
+    v.textContent = statText(value);
     div.appendChild(k);
     div.appendChild(document.createTextNode(": "));
     div.appendChild(v);

@@ -150,7 +150,9 @@
     res.appendChild(fits);
     const table = el("table", "sweep-table");
     table.id = "sweep-table";
-    res.appendChild(table);
+    const scroller = el("div", "table-scroll");   // the table scrolls sideways, not the whole sheet
+    scroller.appendChild(table);
+    res.appendChild(scroller);
     const caution = el("p", "caution");
     caution.id = "sweep-caution";
     res.appendChild(caution);
