@@ -64,8 +64,8 @@ public final class DecisionTreeBuilder {
         }
     }
 
-    private static final double DX = 70;
-    private static final double DY = 90;
+    private static final double DX = 130;
+    private static final double DY = 110;
     /** Largest tree (decision nodes) written out as the function of a truth-table scenario. */
     private static final long MAX_FUNCTION_NODES = 4L * ScenarioDraft.MAX_EDGES;
 
@@ -258,7 +258,10 @@ public final class DecisionTreeBuilder {
                 continue;
             }
             if (child == DecisionDiagram.TRUE) {
+                // the branch to t takes a column of its own, so the edges into t fan out
                 branch(d, dd, vars, v, one, vertex, t, off);
+                sum += (slot[0]++) * DX;
+                kids++;
                 continue;
             }
             int cv = d.vertex("n" + (d.vertexCount() - 1), 0, (level + 1) * DY);
