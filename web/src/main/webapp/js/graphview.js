@@ -91,7 +91,7 @@
       { selector: "edge", style: {
         "curve-style": "bezier", "control-point-step-size": 36 * k,
         "width": 2.5 * k, "line-color": "data(color)", "label": "data(shown)",
-        "font-size": "data(fs)", "color": "#111", "text-background-color": "#fff",
+        "font-size": "data(fs)", "text-margin-x": "data(mx)", "text-margin-y": "data(my)", "color": "#111", "text-background-color": "#fff",
         "text-wrap": "wrap", "text-max-width": 2000, "line-height": 1.1,
         "text-background-opacity": 0.85, "text-background-padding": 2 * k,
         "target-arrow-color": "data(color)", "source-arrow-color": "data(color)",
@@ -128,8 +128,9 @@
 
   /**
    * Places edge labels clear of the vertices. Each edge label (its parts joined by " · ") is tried
-   * on one line, on two lines (the last part below), with one part per line, at full size and then
-   * smaller (down to 60 %). A label may never cover a vertex; it may touch a vertex label or an
+   * on one line, on two lines (the last part below), with one part per line, at the middle of the
+   * edge and then moved a fifth of its length towards either end, at full size and then smaller
+   * (down to 60 %). A label may never cover a vertex where any try avoids it; it may touch a vertex label or an
    * edge label placed before it by at most 3 % of its area (label boxes include their padding).
    * The first try that fits is kept, or else the one that overlaps least. Measured with the
    * drawing's own label boxes, in model coordinates, so the result does not depend on zoom.
@@ -141,7 +142,7 @@
     const full = 12 * k;
     const edges = cy.edges();
     if (edges.length > 400) {
-      cy.batch(function () { edges.forEach(function (e) { e.data({ shown: e.data("label"), fs: full }); }); });
+      cy.batch(function () { edges.forEach(function (e) { e.data({ shown: e.data("label"), fs: full, mx: 0, my: 0 }); }); });
       return;
     }
     const hard = [], soft = [];
@@ -158,18 +159,24 @@
       if (parts.length > 1) shapes.push(parts.join("\n"));
       let best = null;
       const sizes = [1, 0.85, 0.72, 0.6];
+      const a = e.source().position(), b = e.target().position();
+      const dx = (b.x - a.x) * 0.2, dy = (b.y - a.y) * 0.2;
+      const shifts = e.isLoop() ? [[0, 0]] : [[0, 0], [dx, dy], [-dx, -dy]];
       for (let i = 0; i < sizes.length && !(best && best.fits); i++) {
-        for (let j = 0; j < shapes.length; j++) {
-          const t = { shown: shapes[j], fs: full * sizes[i] };
-          e.data(t);
-          const box = e.boundingBox(EDGE_LABEL_BOX);
-          let h = 0, so = 0;
-          for (let q = 0; q < hard.length; q++) h += overlap(box, hard[q], LABEL_GAP);
-          for (let q = 0; q < soft.length; q++) so += overlap(box, soft[q], 0);
-          const fits = h === 0 && so <= 0.03 * box.w * box.h;
-          const cost = 10 * h + so;
-          if (!best || (fits && !best.fits) || (!best.fits && cost < best.cost)) best = { t: t, box: box, cost: cost, fits: fits };
-          if (fits) break;
+        for (let j = 0; j < shapes.length && !(best && best.fits); j++) {
+          for (let m = 0; m < shifts.length; m++) {
+            const t = { shown: shapes[j], fs: full * sizes[i], mx: shifts[m][0], my: shifts[m][1] };
+            e.data(t);
+            const box = e.boundingBox(EDGE_LABEL_BOX);
+            let h = 0, so = 0;
+            for (let q = 0; q < hard.length; q++) h += overlap(box, hard[q], LABEL_GAP);
+            for (let q = 0; q < soft.length; q++) so += overlap(box, soft[q], 0);
+            const fits = h === 0 && so <= 0.03 * box.w * box.h;
+            // a label that covers no vertex beats one that does, however crowded it is
+            const cost = (h > 0 ? 1e12 : 0) + 10 * h + so;
+            if (!best || (fits && !best.fits) || (!best.fits && cost < best.cost)) best = { t: t, box: box, cost: cost, fits: fits };
+            if (fits) break;
+          }
         }
       }
       if (!best) return;
@@ -207,7 +214,7 @@
     const self_ = this;
     g.edges.forEach(function (e) {
       els.push({ group: "edges", data: { id: e.id, source: e.u, target: e.v, label: edgeLabel(e), color: edgeColor(String(e.when)), base: edgeLabel(e),
-        shown: edgeLabel(e), fs: 12 * (self_.scale || 1) } });
+        shown: edgeLabel(e), fs: 12 * (self_.scale || 1), mx: 0, my: 0 } });
     });
     const selected = cy.$(":selected").map(function (x) { return x.id(); });
     cy.batch(function () {
