@@ -392,7 +392,10 @@
         });
       }
     }
-    ticks(x0, x1, function (v) {
+    // x: the sweep's own n when there are few of them (every point then sits on a labelled tick)
+    const ns = pts.map(function (p) { return p[0]; }).filter(function (n, i, a) { return a.indexOf(n) === i; }).sort(function (a, b) { return a - b; });
+    const xTicks = ns.length <= 10 ? function (a0, a1, draw) { ns.forEach(draw); } : ticks;
+    xTicks(x0, x1, function (v) {
       const x = px(v);
       root.appendChild(svg("line", { x1: x, y1: T, x2: x, y2: H - B, stroke: "#ddd" }));
       root.appendChild(svg("text", { x: x, y: H - B + 14, "text-anchor": "middle" }, String(v)));
