@@ -12,6 +12,7 @@
   const PREVIOUS_KEY = "spanwright.previous.v1";
   const ENGINE_KEY = "spanwright.engine";
   const HISTORY_LIMIT = 300;
+  const TYPING_PAUSE_MS = 900;   // a pause in typing this long applies a text field
   const ROW_HEIGHT = 26;
 
   /* A small scenario of our own, used only when the gallery is empty. */
@@ -882,6 +883,17 @@
     commit(function (sc) { if (v) sc.function = v; else delete sc.function; });
   });
   $("promise").addEventListener("change", function () { const v = textToPromise($("promise").value); commit(function (sc) { sc.promise = v; }); });
+  // Typing applies itself after a pause too (so a reload mid-edit loses nothing); change (Enter,
+  // leaving the field) applies at once. commit() ignores a value that is already applied.
+  ["title", "notes", "function", "promise"].forEach(function (id) {
+    let timer = null;
+    const field = $(id);
+    field.addEventListener("input", function () {
+      clearTimeout(timer);
+      timer = setTimeout(function () { field.dispatchEvent(new Event("change")); }, TYPING_PAUSE_MS);
+    });
+    field.addEventListener("change", function () { clearTimeout(timer); });
+  });
   $("undo").addEventListener("click", undo);
   $("redo").addEventListener("click", redo);
 
