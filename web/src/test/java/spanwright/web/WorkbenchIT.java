@@ -229,6 +229,22 @@ class WorkbenchIT extends PageTestBase {
         assertEquals(work, page.js("return window.Spanwright.scenarioText();"));
     }
 
+    @Test
+    void aPauseInTypingAppliesTheFieldSoAReloadKeepsIt() {
+        // The user types into the function field and reloads without leaving the field: what was
+        // typed is applied after the pause, autosaved, and back after the reload.
+        page.openFresh(null);
+        String before = (String) page.js("return window.Spanwright.scenarioText();");
+        page.$("function").sendKeys(" | (n1 & q)");
+        page.waitFor("the pause applied the function", WAIT,
+                () -> String.valueOf(page.js("return window.Spanwright.scenarioText();")).contains("(p & q) | (n1 & q)"));
+        assertTrue(before.contains("\"(n1 & n2) | (s1 & s2) | (p & q)\""), before);
+        page.driver.navigate().refresh();
+        page.waitForAnalysis(0, WAIT);
+        assertEquals("autosave", page.js("return document.body.dataset.loadedFrom;"));
+        assertEquals("(n1 & n2) | (s1 & s2) | (p & q) | (n1 & q)", page.$("function").getAttribute("value"));
+    }
+
     /** Clicks the drawing's SVG button and returns the document the page would download. */
     private String exportedSvg() {
         page.js("window.__svgText = null; window.SwFormat.download = function (name, blob) {"
