@@ -13,7 +13,7 @@
 
   const st = { task: null, serial: 0, doneFor: null, running: false, started: 0, untick: function () {}, result: null };
 
-  /* Rows: [group, key, label, explanation]. The labels are ours; the values the engine's. */
+  /* Rows: [group, key, label, explanation, key whose reason also serves]. The labels are ours; the values the engine's. */
   const ROWS = [
     ["top", "complexity", "this graph's bound √(W₊·W₋)", "current weights"],
     ["top", "optimalityGap", "optimality gap √(W₊·W₋) / ADV±", "≥ 1; 1 means this graph is optimal up to constants"],
@@ -22,7 +22,8 @@
     ["top", "optimisedGap", "optimality gap, optimised weights", "≥ 1"],
     ["adversary", "general", "ADV± (general adversary)", "lower bound for every graph deciding f; Θ(quantum query complexity)"],
     ["adversary", "generalDual", "ADV± upper value", "the dual value of the same semidefinite program"],
-    ["adversary", "positive", "ADV (positive adversary)", "ADV ≤ ADV±"],
+    ["adversary", "positive", "ADV (positive adversary)", "certified lower end; ADV ≤ ADV±"],
+    ["adversary", "positiveUpper", "ADV upper value", "the minimax value of the engine's distributions; ADV lies between the two", "positive"],
     ["classical", "D", "D (decision-tree depth)", "deterministic query complexity"],
     ["classical", "C0", "C₀ (0-certificate)", ""],
     ["classical", "C1", "C₁ (1-certificate)", ""],
@@ -116,7 +117,7 @@
     ROWS.forEach(function (row) {
       const src = row[0] === "adversary" ? adv : row[0] === "classical" ? cl : r;
       const why = row[0] === "adversary" ? advR : row[0] === "classical" ? clR : topR;
-      setValue(row[1], src[row[1]], why[row[1]]);
+      setValue(row[1], src[row[1]], why[row[1]] || (row[4] && why[row[4]]));
     });
     const warn = $("bounds-warning");
     warn.hidden = r.reductionCorrect !== false;

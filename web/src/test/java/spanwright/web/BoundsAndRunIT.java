@@ -62,6 +62,7 @@ class BoundsAndRunIT extends PageTestBase {
         assertWithinGap(adv.get("general"), adv.get("generalDual"), adv.get("general"), page.$("bounds-general").getAttribute("data-value"), "adversary.general");
         assertWithinGap(adv.get("general"), adv.get("generalDual"), adv.get("generalDual"), page.$("bounds-generalDual").getAttribute("data-value"), "adversary.generalDual");
         assertWithinGap(adv.get("positive"), adv.get("positiveUpper"), adv.get("positive"), page.$("bounds-positive").getAttribute("data-value"), "adversary.positive");
+        assertWithinGap(adv.get("positive"), adv.get("positiveUpper"), adv.get("positiveUpper"), page.$("bounds-positiveUpper").getAttribute("data-value"), "adversary.positiveUpper");
         for (String k : new String[] {"D", "C0", "C1", "C", "s", "bs", "deg"}) {
             assertValue(cl.get(k), page.$("bounds-" + k).getAttribute("data-value"), "classical." + k);
             Map<String, Object> reasons = (Map<String, Object>) cl.get("reasons");
