@@ -287,6 +287,41 @@
     });
   }
 
+  /** The optimiser's hints of one edge: a "locked" box and a tie-group name (format v1 keys
+   *  `locked` and `group`; an empty group or an unticked box removes the key). */
+  function hintControls(e) {
+    const lock = document.createElement("input");
+    lock.type = "checkbox";
+    lock.className = "edge-locked";
+    lock.checked = e.locked === true;
+    lock.title = "Locked: the weight search keeps this weight as given";
+    lock.setAttribute("aria-label", "Lock the weight of edge " + e.id);
+    lock.addEventListener("change", function () {
+      const on = lock.checked;
+      commit(function (sc) {
+        const x = sc.graph.edges.find(function (y) { return y.id === e.id; });
+        if (!x) return false;
+        if (on) x.locked = true; else delete x.locked;
+      });
+    });
+    const group = document.createElement("input");
+    group.className = "edge-group";
+    group.value = e.group === undefined || e.group === null ? "" : String(e.group);
+    group.placeholder = "group";
+    group.spellcheck = false;
+    group.title = "Edges with the same group name share one weight in the weight search";
+    group.setAttribute("aria-label", "Tie group of edge " + e.id);
+    group.addEventListener("change", function () {
+      const v = group.value.trim();
+      commit(function (sc) {
+        const x = sc.graph.edges.find(function (y) { return y.id === e.id; });
+        if (!x) return false;
+        if (v) x.group = v; else delete x.group;
+      });
+    });
+    return [lock, group];
+  }
+
   function renderEdgeTable() {
     const body = $("edge-table").tBodies[0];
     body.textContent = "";
@@ -301,12 +336,15 @@
       wi.className = "edge-weight";
       wi.setAttribute("aria-label", "Weight of edge " + e.id);
       c4.appendChild(wi);
+      const c6 = document.createElement("td");
+      c6.className = "edge-hints";
+      hintControls(e).forEach(function (c) { c6.appendChild(c); });
       const c5 = document.createElement("td");
       const del = document.createElement("button");
       del.textContent = "×"; del.title = "Delete edge " + e.id;
       del.addEventListener("click", function () { deleteElement({ kind: "edge", id: e.id }); });
       c5.appendChild(del);
-      [c1, c2, c3, c4, c5].forEach(function (c) { tr.appendChild(c); });
+      [c1, c2, c3, c4, c6, c5].forEach(function (c) { tr.appendChild(c); });
       body.appendChild(tr);
     });
   }
@@ -326,6 +364,11 @@
       const wi = weightInput(e.weight, function (w) { setEdge(e.id, "weight", w); });
       wi.id = "sel-weight";
       body.appendChild(labelled("weight (resistance)", wi));
+      const hints = hintControls(e);
+      hints[0].id = "sel-locked";
+      hints[1].id = "sel-group";
+      body.appendChild(labelled("locked for the weight search", hints[0]));
+      body.appendChild(labelled("tie group", hints[1]));
       return;
     }
     if (sel && sel.kind === "vertex") {

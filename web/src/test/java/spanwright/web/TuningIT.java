@@ -100,6 +100,42 @@ class TuningIT extends PageTestBase {
 
     @Test
     @SuppressWarnings("unchecked")
+    void lockAndGroupSetInTheEdgeListReachTheOptimiser() {
+        // The edge list's lock box and tie-group field write the format's "locked" and "group"
+        // keys; the search keeps the locked weight exactly and gives the group one weight.
+        page.js("document.querySelectorAll('details').forEach(function (d) { d.open = true; });");
+        int serial = page.serial();
+        WebElement lock = page.driver.findElement(By.cssSelector("#edge-table tr[data-edge='pump'] .edge-locked"));
+        page.js("arguments[0].scrollIntoView();", lock);
+        lock.click();
+        page.waitForAnalysis(serial, WAIT);
+        for (String id : new String[] {"n1", "n2"}) {
+            WebElement g = page.driver.findElement(By.cssSelector("#edge-table tr[data-edge='" + id + "'] .edge-group"));
+            page.js("arguments[0].scrollIntoView();", g);
+            g.sendKeys("north", Keys.TAB);
+        }
+        page.waitFor("hints written", WAIT, () -> {
+            String t = scenarioText();
+            return t.contains("\"locked\":true") && t.split("\"group\":\"north\"", -1).length == 3;
+        });
+        String before = scenarioText();
+        runOptimiser();
+        Map<String, Object> r = (Map<String, Object>) jvmOptimize(before, page.$("opt-result").getAttribute("data-options")).get("result");
+        Map<String, Object> weights = (Map<String, Object>) r.get("weights");
+        // Derived: a locked weight is returned as given; tied weights are equal.
+        assertEquals(0.5, num(weights.get("pump")), "JVM keeps the locked weight");
+        assertEquals(num(weights.get("n1")), num(weights.get("n2")), "JVM ties the group");
+        double pump = Double.parseDouble(page.driver.findElement(By.cssSelector("#opt-weights tr[data-edge='pump'] td.after")).getAttribute("data-value"));
+        double n1 = Double.parseDouble(page.driver.findElement(By.cssSelector("#opt-weights tr[data-edge='n1'] td.after")).getAttribute("data-value"));
+        double n2 = Double.parseDouble(page.driver.findElement(By.cssSelector("#opt-weights tr[data-edge='n2'] td.after")).getAttribute("data-value"));
+        assertEquals(0.5, pump, "the page keeps the locked weight");
+        assertEquals(n1, n2, "the page ties the group");
+        assertNear(num(weights.get("n1")), n1, "tied weight (JsonFacade.optimize on the JVM, same text)");
+        assertNear(num(r.get("complexity")), page.value("opt-after-bound"), "bound after (JsonFacade.optimize on the JVM)");
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
     void acceptIsAnUndoableEditAndDiscardKeepsTheScenario() {
         String before = scenarioText();
         Map<String, Object> original = WorkbenchIT.jvmResult(before);
