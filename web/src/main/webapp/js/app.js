@@ -697,6 +697,9 @@
     const last = Math.min(v.length, first + Math.ceil(list.clientHeight / ROW_HEIGHT) + 10);
     const res = a.result;
     const wp = res.positive && res.positive.maxResistance, wm = res.negative && res.negative.maxCapacitance;
+    // the input column is as wide as the input strings (CSS shrinks their type beyond 12 characters)
+    const chars = String(state.scenario.variables.length || 1);
+    if ($("inputs-panel").style.getPropertyValue("--x-chars") !== chars) $("inputs-panel").style.setProperty("--x-chars", chars);
     let used = 0;
     for (let k = first; k < last; k++) {
       const i = v[k];

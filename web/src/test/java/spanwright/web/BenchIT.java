@@ -223,6 +223,11 @@ class BenchIT {
             WorkbenchIT.assertClose(WorkbenchIT.side(expected, "positive", "maxResistance"), page.value("sum-wplus"), "W+");
             WorkbenchIT.assertClose(WorkbenchIT.side(expected, "negative", "maxCapacitance"), page.value("sum-wminus"), "W-");
             WorkbenchIT.assertClose(((Number) expected.get("complexity")).doubleValue(), page.value("sum-bound"), "bound");
+            // Layout (no computed value): a 20-character input string fits its column, whole, left
+            // of the f column, and the list does not scroll sideways.
+            Object layout = page.js("var r = document.querySelector('#list .row:not([hidden])'), x = r.children[0], f = r.children[1], l = document.getElementById('list');"
+                    + "return [x.textContent.length, x.scrollWidth <= x.clientWidth + 1, x.getBoundingClientRect().right <= f.getBoundingClientRect().left + 0.5, l.scrollWidth <= l.clientWidth + 1].join(' ');");
+            assertEquals("20 true true true", layout, "input column of the list (length, whole, clear of f, no sideways scroll)");
             record("engine=" + page.data("engine-badge", "engine") + " 2^20 inputs (ladder of 10 rungs, 20 variables): "
                     + Math.round(Double.parseDouble(page.data("timing", "ms"))) + " ms in the worker, "
                     + Math.round(Double.parseDouble(page.data("timing", "rate"))) + " inputs/s, " + wall
