@@ -175,6 +175,8 @@
   function setValue(el, v) { if (document.activeElement !== el && el.value !== v) el.value = v; }
 
   function renderVariables() {
+    // the inputs list's x column is as wide as the input strings (CSS shrinks their type beyond 12)
+    $("inputs-panel").style.setProperty("--x-chars", String(state.scenario.variables.length || 1));
     const box = $("variables");
     box.textContent = "";
     state.scenario.variables.forEach(function (name, i) {
@@ -279,11 +281,12 @@
     return inp;
   }
 
+  /** Sets one key of one edge as an undoable edit; undefined removes the key. */
   function setEdge(id, field, value) {
     commit(function (sc) {
       const e = sc.graph.edges.find(function (x) { return x.id === id; });
       if (!e) return false;
-      e[field] = value;
+      if (value === undefined) delete e[field]; else e[field] = value;
     });
   }
 
@@ -296,14 +299,7 @@
     lock.checked = e.locked === true;
     lock.title = "Locked: the weight search keeps this weight as given";
     lock.setAttribute("aria-label", "Lock the weight of edge " + e.id);
-    lock.addEventListener("change", function () {
-      const on = lock.checked;
-      commit(function (sc) {
-        const x = sc.graph.edges.find(function (y) { return y.id === e.id; });
-        if (!x) return false;
-        if (on) x.locked = true; else delete x.locked;
-      });
-    });
+    lock.addEventListener("change", function () { setEdge(e.id, "locked", lock.checked ? true : undefined); });
     const group = document.createElement("input");
     group.className = "edge-group";
     group.value = e.group === undefined || e.group === null ? "" : String(e.group);
@@ -311,14 +307,7 @@
     group.spellcheck = false;
     group.title = "Edges with the same group name share one weight in the weight search";
     group.setAttribute("aria-label", "Tie group of edge " + e.id);
-    group.addEventListener("change", function () {
-      const v = group.value.trim();
-      commit(function (sc) {
-        const x = sc.graph.edges.find(function (y) { return y.id === e.id; });
-        if (!x) return false;
-        if (v) x.group = v; else delete x.group;
-      });
-    });
+    group.addEventListener("change", function () { setEdge(e.id, "group", group.value.trim() || undefined); });
     return [lock, group];
   }
 
@@ -697,9 +686,6 @@
     const last = Math.min(v.length, first + Math.ceil(list.clientHeight / ROW_HEIGHT) + 10);
     const res = a.result;
     const wp = res.positive && res.positive.maxResistance, wm = res.negative && res.negative.maxCapacitance;
-    // the input column is as wide as the input strings (CSS shrinks their type beyond 12 characters)
-    const chars = String(state.scenario.variables.length || 1);
-    if ($("inputs-panel").style.getPropertyValue("--x-chars") !== chars) $("inputs-panel").style.setProperty("--x-chars", chars);
     let used = 0;
     for (let k = first; k < last; k++) {
       const i = v[k];
