@@ -193,13 +193,31 @@ class TuningIT extends PageTestBase {
         return work;
     }
 
+    /**
+     * Clicks a button of the running search until the page shows it was taken. The sheet's live
+     * trace and timer re-lay the sheet out while the search runs, so a click aimed at the button's
+     * centre can land beside it once in a while; the button's own state says whether it arrived.
+     */
+    private void pressDuringSearch(String id, String taken) {
+        for (int attempt = 1; attempt <= 3; attempt++) {
+            page.$(id).click();
+            try {
+                page.waitFor(id + " taken", Duration.ofSeconds(3), () -> Boolean.TRUE.equals(page.js(taken)));
+                return;
+            } catch (org.openqa.selenium.TimeoutException e) {
+                System.out.println("[TuningIT] " + id + ": click " + attempt + " not taken, clicking again");
+            }
+        }
+        throw new AssertionError(id + " was clicked three times and the page never took it");
+    }
+
     @Test
     void cancelEndsTheSearchAndKeepsTheWork() throws IOException {
         java.nio.file.Path file = java.nio.file.Files.createTempFile("ladder18-", ".json");
         try {
             String work = startLongSearch(file);
             page.waitFor("progress shown", WAIT, () -> page.$("opt-progress").isDisplayed());
-            page.$("opt-cancel").click();
+            pressDuringSearch("opt-cancel", "return document.body.dataset.optimiser !== 'running';");
             page.waitFor("cancelled", WAIT, () -> "cancelled".equals(page.js("return document.body.dataset.optimiser;")));
             assertFalse(page.$("opt-progress").isDisplayed());
             assertEquals(work, scenarioText(), "the work is kept");
@@ -224,7 +242,7 @@ class TuningIT extends PageTestBase {
             String work = startLongSearch(file);
             double start = num(WorkbenchIT.jvmResult(work).get("complexity"));
             page.waitFor("first step drawn", WAIT, () -> !"0".equals(String.valueOf(page.js("return document.body.dataset.optimiserSteps || '0';"))));
-            page.$("opt-stop").click();
+            pressDuringSearch("opt-stop", "return document.getElementById('opt-stop').disabled || document.body.dataset.optimiser !== 'running';");
             page.waitFor("stopped with a result", WAIT, () -> "result".equals(page.js("return document.body.dataset.optimiser;")));
             assertEquals("cancelled", page.$("opt-status").getAttribute("data-status"));
             assertTrue(page.$("opt-status").getText().contains("stopped by you"), page.$("opt-status").getText());
