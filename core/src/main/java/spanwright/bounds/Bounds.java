@@ -4,7 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Scenario;
 import spanwright.optimize.OptimizationResult;
 import spanwright.optimize.OptimizerOptions;

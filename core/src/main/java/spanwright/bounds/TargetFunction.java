@@ -6,7 +6,7 @@ import java.util.List;
 import spanwright.domain.InputDomain;
 import spanwright.expr.Expr;
 import spanwright.expr.ExprParser;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Inputs;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;

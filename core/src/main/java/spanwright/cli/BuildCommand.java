@@ -9,16 +9,16 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import spanwright.build.Built;
-import spanwright.io.BuildRequest;
+import spanwright.reduction.Built;
+import spanwright.reduction.BuildRequest;
 import spanwright.io.Json;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.io.ScenarioWriter;
 
 /**
  * {@code build}: writes a format-v1 scenario built from a formula, a function, a host graph or a
  * composition, to stdout or {@code -o FILE}; a summary of the construction goes to stderr. The
- * arguments become the same request the page sends ({@link spanwright.io.JsonFacade#build}), run
+ * arguments become the same request the page sends ({@link spanwright.facade.JsonFacade#build}), run
  * by {@link BuildRequest}. Exit status 0, or 2 for bad usage or input (the message names the
  * argument or file at fault).
  */

@@ -6,7 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import spanwright.io.Json;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.sweep.SweepDocument;
 import spanwright.sweep.SweepTables;
 

@@ -1,5 +1,6 @@
 package spanwright.cli;
 
+import spanwright.io.NumberText;
 import java.io.IOException;
 import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
@@ -18,7 +19,7 @@ import java.util.concurrent.atomic.AtomicInteger;
 import java.util.concurrent.atomic.AtomicLong;
 import spanwright.analysis.Summary;
 import spanwright.io.Json;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.sweep.BuiltInFamilies;
 import spanwright.sweep.Family;
 import spanwright.sweep.FamilyTemplate;

@@ -1,6 +1,6 @@
 package spanwright.domain;
 
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Inputs;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;

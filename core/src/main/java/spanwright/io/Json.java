@@ -1,5 +1,6 @@
 package spanwright.io;
 
+import spanwright.model.ScenarioException;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;

@@ -1,5 +1,6 @@
 package spanwright.io;
 
+import spanwright.model.ScenarioException;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.HashSet;
@@ -361,7 +362,7 @@ public final class ScenarioReader {
 
     @SuppressWarnings("unchecked")
     /** The entries of an options object (path {@code $options}); none for null or blank text. */
-    static Map<String, Object> options(String optionsJson) {
+    public static Map<String, Object> options(String optionsJson) {
         if (optionsJson == null || optionsJson.trim().isEmpty()) {
             return java.util.Collections.emptyMap();
         }
@@ -369,11 +370,11 @@ public final class ScenarioReader {
     }
 
     /** The error for an option key nobody knows, naming the ones that exist. */
-    static ScenarioException unknownOption(String key, String known) {
+    public static ScenarioException unknownOption(String key, String known) {
         return new ScenarioException("option", "$options." + key, "unknown option \"" + key + "\" (known: " + known + ")");
     }
 
-    static Map<String, Object> object(Object o, String path) {
+    public static Map<String, Object> object(Object o, String path) {
         if (!(o instanceof Map)) {
             throw new ScenarioException("type", path, "expected an object {…}, got " + show(o));
         }
@@ -381,14 +382,14 @@ public final class ScenarioReader {
     }
 
     @SuppressWarnings("unchecked")
-    static List<Object> array(Object o, String path) {
+    public static List<Object> array(Object o, String path) {
         if (!(o instanceof List)) {
             throw new ScenarioException("type", path, "expected a list […], got " + show(o));
         }
         return (List<Object>) o;
     }
 
-    static String string(Object o, String path) {
+    public static String string(Object o, String path) {
         if (!(o instanceof String)) {
             throw new ScenarioException("type", path, "expected a string, got " + show(o));
         }
@@ -414,7 +415,7 @@ public final class ScenarioReader {
         return ((Number) o).doubleValue();
     }
 
-    static String show(Object o) {
+    public static String show(Object o) {
         if (o instanceof Map) {
             return "an object";
         }

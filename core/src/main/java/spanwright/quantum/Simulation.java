@@ -6,7 +6,7 @@ import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
 import spanwright.domain.InputDomain;
 import spanwright.electric.Witness;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Scenario;
 
 /**

@@ -30,7 +30,7 @@ public interface Family {
     /**
      * The instance of size {@code size}.
      *
-     * @throws spanwright.io.ScenarioException when the size is invalid or the builder refuses it
+     * @throws spanwright.model.ScenarioException when the size is invalid or the builder refuses it
      *     (too large), with a plain message
      */
     FamilyInstance instance(int size);

@@ -6,10 +6,10 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import spanwright.analysis.VariableSymmetry;
-import spanwright.build.Built;
-import spanwright.io.BuildRequest;
+import spanwright.reduction.Built;
+import spanwright.reduction.BuildRequest;
 import spanwright.io.Json;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.io.ScenarioReader;
 import spanwright.model.Scenario;
 

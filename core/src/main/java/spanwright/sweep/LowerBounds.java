@@ -4,7 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import spanwright.bounds.Bounds;
 import spanwright.bounds.BoundsReport;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Scenario;
 
 /**

@@ -3,7 +3,7 @@ package spanwright.sweep;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.TreeSet;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 
 /**
  * The sizes of a sweep, written as comma-separated items: {@code 7} (one size), {@code 2..20}

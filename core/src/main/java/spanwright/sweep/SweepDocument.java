@@ -7,8 +7,8 @@ import java.util.List;
 import java.util.Map;
 import spanwright.analysis.Summary;
 import spanwright.io.Json;
-import spanwright.io.ResultJson;
-import spanwright.io.ScenarioException;
+import spanwright.model.Normalisation;
+import spanwright.model.ScenarioException;
 import spanwright.model.Inputs;
 
 /**
@@ -224,7 +224,7 @@ public final class SweepDocument {
     public static Map<String, Object> result(Family family, List<Integer> sizes, SweepOptions options,
             List<Map<String, Object>> rows, int fitFrom, int fitLast, Map<String, Object> run) {
         Map<String, Object> m = head(FORMAT, family, sizes, options);
-        m.put("convention", ResultJson.CONVENTION);
+        m.put("convention", Normalisation.CONVENTION);
         m.put("caution", SweepReport.FIT_CAUTION);
         List<Map<String, Object>> sorted = new ArrayList<>(rows);
         sorted.sort((a, b) -> Integer.compare(((Number) a.get("size")).intValue(), ((Number) b.get("size")).intValue()));

@@ -4,7 +4,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import spanwright.io.ResultJson;
+import spanwright.model.Normalisation;
 
 /**
  * The table of a sweep and its fitted exponents: rows (one per size, from {@link SweepSize#row}),
@@ -82,7 +82,7 @@ public final class SweepReport {
         }
         out.put("series", series);
         out.put("caution", FIT_CAUTION);
-        out.put("convention", ResultJson.CONVENTION);
+        out.put("convention", Normalisation.CONVENTION);
         return out;
     }
 

@@ -9,7 +9,7 @@ import spanwright.analysis.CandidateInputs;
 import spanwright.analysis.Summary;
 import spanwright.analysis.VariableSymmetry;
 import spanwright.domain.InputDomain;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
 import spanwright.model.Promise;

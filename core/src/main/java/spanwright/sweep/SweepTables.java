@@ -1,5 +1,6 @@
 package spanwright.sweep;
 
+import spanwright.io.Json;
 import java.util.List;
 import java.util.Map;
 import spanwright.io.NumberText;

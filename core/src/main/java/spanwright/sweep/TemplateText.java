@@ -6,7 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import spanwright.io.Json;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 
 /**
  * Spanwright's family template language: JSON in which the size parameter (and loop variables)

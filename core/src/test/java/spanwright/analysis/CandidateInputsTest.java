@@ -13,7 +13,7 @@ import java.util.TreeMap;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
-import spanwright.build.FormulaBuilder;
+import spanwright.reduction.FormulaBuilder;
 import spanwright.electric.ElectricalNetwork;
 import spanwright.model.Condition;
 import spanwright.model.Edge;

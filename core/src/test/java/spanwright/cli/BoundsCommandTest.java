@@ -12,7 +12,7 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import spanwright.io.Json;
-import spanwright.io.JsonFacade;
+import spanwright.facade.JsonFacade;
 
 /**
  * {@code bounds FILE [--json]}: exit codes, the keys the "Lower bounds and classical measures"

@@ -14,7 +14,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import spanwright.analysis.Analysis;
 import spanwright.io.Json;
-import spanwright.io.JsonFacade;
+import spanwright.facade.JsonFacade;
 import spanwright.io.ScenarioReader;
 
 class OptimizeCommandTest {

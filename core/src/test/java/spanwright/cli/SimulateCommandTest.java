@@ -14,7 +14,7 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import spanwright.io.Json;
-import spanwright.io.JsonFacade;
+import spanwright.facade.JsonFacade;
 
 /** The simulate command and JsonFacade.simulate: keys, exit codes, envelopes, agreement. */
 class SimulateCommandTest {

@@ -7,7 +7,7 @@ import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import spanwright.io.Json;
-import spanwright.io.JsonFacade;
+import spanwright.facade.JsonFacade;
 import spanwright.io.ScenarioReader;
 import spanwright.model.Scenario;
 

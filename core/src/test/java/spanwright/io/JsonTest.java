@@ -1,5 +1,6 @@
 package spanwright.io;
 
+import spanwright.model.ScenarioException;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertThrows;

@@ -21,7 +21,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 import spanwright.analysis.Analysis;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.io.ScenarioReader;
 import spanwright.model.Condition;
 import spanwright.model.Edge;

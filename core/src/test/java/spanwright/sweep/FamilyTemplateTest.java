@@ -17,7 +17,7 @@ import org.junit.jupiter.api.Test;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
 import spanwright.io.Json;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 
 /** User families: the demo family files in scenarios/families, templates of both kinds, errors. */
 class FamilyTemplateTest {

@@ -1,5 +1,6 @@
 package spanwright.sweep;
 
+import spanwright.io.ScenarioWriter;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -213,8 +214,8 @@ class SweepFamiliesTest {
             assertEquals(n + 1.0, num(r, "domainSize"), 0.0);
         }
         // composition powers of a two-edge AND: F^(d) is AND of 2^d (derived: series of series), sqrt(2^d)
-        Map<String, Object> andTwo = spanwright.io.ScenarioWriter.toJson(spanwright.build.FormulaBuilder.build("a & b",
-                null, spanwright.build.FormulaBuilder.Weights.RULE).scenario());
+        Map<String, Object> andTwo = spanwright.io.ScenarioWriter.toJson(spanwright.reduction.FormulaBuilder.build("a & b",
+                null, spanwright.reduction.FormulaBuilder.Weights.RULE).scenario());
         for (Map<String, Object> r : sweep(family("power", "scenario", andTwo), "1..3", o)) {
             int n = ((Number) r.get("variables")).intValue();
             assertEquals(1 << ((Number) r.get("size")).intValue(), n);

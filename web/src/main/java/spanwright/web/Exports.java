@@ -1,7 +1,7 @@
 package spanwright.web;
 
 import org.teavm.jso.JSExport;
-import spanwright.io.JsonFacade;
+import spanwright.facade.JsonFacade;
 
 /**
  * The functions the page calls, compiled by TeaVM to JavaScript and to WebAssembly-GC.

@@ -1,5 +1,6 @@
 package spanwright.web;
 
+import spanwright.io.ScenarioWriter;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 

@@ -10,7 +10,7 @@ import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.openqa.selenium.By;
 import spanwright.io.Json;
-import spanwright.io.JsonFacade;
+import spanwright.facade.JsonFacade;
 
 /**
  * The "Bounds" and "Run" sheets in real Chromium from file://. Expected values come from the JVM:

@@ -14,7 +14,7 @@ import org.openqa.selenium.By;
 import org.openqa.selenium.Dimension;
 import org.openqa.selenium.WebElement;
 import spanwright.io.Json;
-import spanwright.io.JsonFacade;
+import spanwright.facade.JsonFacade;
 
 /**
  * The "Sweep" sheet in real Chromium from file://: the OR family over n = 2..6, run size by size

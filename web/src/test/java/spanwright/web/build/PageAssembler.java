@@ -1,5 +1,6 @@
 package spanwright.web.build;
 
+import spanwright.io.Json;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;

@@ -1,5 +1,7 @@
-package spanwright.io;
+package spanwright.facade;
 
+import spanwright.io.Json;
+import spanwright.io.ScenarioReader;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 

@@ -1,4 +1,4 @@
-package spanwright.build;
+package spanwright.reduction;
 
 import java.util.ArrayList;
 import java.util.HashSet;
@@ -7,7 +7,7 @@ import java.util.Set;
 import spanwright.expr.Expr;
 import spanwright.expr.ExprException;
 import spanwright.expr.ExprParser;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Edge;
 import spanwright.model.Scenario;
 

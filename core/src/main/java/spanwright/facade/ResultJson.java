@@ -1,5 +1,6 @@
-package spanwright.io;
+package spanwright.facade;
 
+import spanwright.io.Json;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -8,6 +9,7 @@ import spanwright.analysis.AnalysisResult;
 import spanwright.analysis.InputDetail;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
+import spanwright.model.Normalisation;
 import spanwright.model.Scenario;
 
 /**
@@ -15,12 +17,10 @@ import spanwright.model.Scenario;
  * documented in {@code docs/cli.md}; they may be added to, never renamed.
  */
 public final class ResultJson {
-    /** Normalisation stated with every number. */
-    public static final String CONVENTION = "weight = resistance; each edge counted once; "
-            + "R = effective resistance of present edges, C = effective capacitance (1/weight) of absent edges";
-    /** The caution shown with every bound. */
-    public static final String CAUTION = "sqrt(W+ W-) is an asymptotic query-complexity bound for the span-program "
-            + "algorithm (constants not included), not a run-time estimate for real hardware";
+    /** Normalisation stated with every number (see {@link Normalisation}). */
+    public static final String CONVENTION = Normalisation.CONVENTION;
+    /** The caution shown with every bound (see {@link Normalisation}). */
+    public static final String CAUTION = Normalisation.CAUTION;
 
     private ResultJson() {}
 

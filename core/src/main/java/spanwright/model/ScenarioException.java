@@ -1,4 +1,4 @@
-package spanwright.io;
+package spanwright.model;
 
 /**
  * Bad input: a malformed file or link, an unknown vertex or variable, an invalid weight, a domain

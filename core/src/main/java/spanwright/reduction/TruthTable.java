@@ -1,4 +1,4 @@
-package spanwright.build;
+package spanwright.reduction;
 
 import spanwright.expr.Expr;
 

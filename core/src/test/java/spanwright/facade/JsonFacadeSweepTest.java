@@ -1,5 +1,6 @@
-package spanwright.io;
+package spanwright.facade;
 
+import spanwright.io.Json;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 

@@ -1,5 +1,8 @@
-package spanwright.io;
+package spanwright.facade;
 
+import spanwright.model.ScenarioException;
+import spanwright.io.Json;
+import spanwright.io.ScenarioReader;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;

@@ -1,5 +1,6 @@
-package spanwright.build;
+package spanwright.reduction;
 
+import spanwright.io.ScenarioReader;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.HashSet;
@@ -12,7 +13,7 @@ import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
 import spanwright.expr.Expr;
 import spanwright.expr.ExprParser;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Condition;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;

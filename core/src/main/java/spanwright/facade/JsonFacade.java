@@ -1,5 +1,11 @@
-package spanwright.io;
+package spanwright.facade;
 
+import spanwright.model.ScenarioException;
+import spanwright.io.Json;
+import spanwright.io.ScenarioReader;
+import spanwright.io.ScenarioWriter;
+import spanwright.io.ShareCodec;
+import spanwright.reduction.BuildRequest;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -199,7 +205,7 @@ public final class JsonFacade {
      */
     public static String build(String requestJson) {
         try {
-            spanwright.build.Built b = BuildRequest.run(Json.parse(requestJson));
+            spanwright.reduction.Built b = BuildRequest.run(Json.parse(requestJson));
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
             m.put("scenario", ScenarioWriter.toJson(b.scenario()));

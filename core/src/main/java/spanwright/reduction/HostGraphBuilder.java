@@ -1,5 +1,6 @@
-package spanwright.build;
+package spanwright.reduction;
 
+import spanwright.io.ScenarioReader;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.HashSet;
@@ -18,7 +19,7 @@ import org.jgrapht.generate.LinearGraphGenerator;
 import org.jgrapht.generate.RingGraphGenerator;
 import org.jgrapht.graph.builder.GraphTypeBuilder;
 import spanwright.expr.ExprParser;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Condition;
 import spanwright.model.Edge;
 import spanwright.model.Promise;

@@ -1,4 +1,4 @@
-package spanwright.build;
+package spanwright.reduction;
 
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -6,7 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import spanwright.expr.Expr;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Condition;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;

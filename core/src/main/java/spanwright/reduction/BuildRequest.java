@@ -1,13 +1,16 @@
-package spanwright.io;
+package spanwright.reduction;
 
+import spanwright.model.ScenarioException;
+import spanwright.io.Json;
+import spanwright.io.ScenarioReader;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-import spanwright.build.Built;
-import spanwright.build.CompositionBuilder;
-import spanwright.build.DecisionTreeBuilder;
-import spanwright.build.FormulaBuilder;
-import spanwright.build.HostGraphBuilder;
+import spanwright.reduction.Built;
+import spanwright.reduction.CompositionBuilder;
+import spanwright.reduction.DecisionTreeBuilder;
+import spanwright.reduction.FormulaBuilder;
+import spanwright.reduction.HostGraphBuilder;
 import spanwright.model.Scenario;
 
 /**

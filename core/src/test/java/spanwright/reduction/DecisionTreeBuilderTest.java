@@ -1,4 +1,4 @@
-package spanwright.build;
+package spanwright.reduction;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -14,7 +14,7 @@ import org.junit.jupiter.api.Test;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
 import spanwright.io.RoundTrip;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.model.Edge;
 import spanwright.model.Scenario;
 

@@ -1,5 +1,6 @@
-package spanwright.io;
+package spanwright.facade;
 
+import spanwright.io.Json;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;

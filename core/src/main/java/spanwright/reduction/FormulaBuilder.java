@@ -1,4 +1,4 @@
-package spanwright.build;
+package spanwright.reduction;
 
 import java.util.IdentityHashMap;
 import java.util.LinkedHashMap;
@@ -7,7 +7,7 @@ import java.util.Map;
 import spanwright.expr.Expr;
 import spanwright.expr.ExprException;
 import spanwright.expr.ExprParser;
-import spanwright.io.ScenarioException;
+import spanwright.model.ScenarioException;
 import spanwright.io.ScenarioReader;
 import spanwright.model.Condition;
 import spanwright.model.Promise;

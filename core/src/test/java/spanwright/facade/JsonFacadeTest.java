@@ -1,5 +1,7 @@
-package spanwright.io;
+package spanwright.facade;
 
+import spanwright.io.Json;
+import spanwright.io.ShareCodec;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
