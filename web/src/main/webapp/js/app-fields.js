@@ -32,11 +32,19 @@
   function renderForms() {
     const sc = state.scenario;
     setValue($("title"), sc.title || "");
-    setValue($("function"), sc.function || "");
+    setValue($("function"), functionToText(sc.function));
     setValue($("promise"), promiseToText(sc.promise));
     setValue($("notes"), sc.notes || "");
     renderVariables();
     P.renderEdgeTable();
+  }
+  // The connectivity form {"connects": …} has no expression text: the field shows it in words and
+  // keeps the object while those words are left as they are; typing an expression replaces it.
+  const OWN_GRAPH_WORDS = "s–t connectivity of this graph";
+  const LISTED_GRAPH_WORDS = "s–t connectivity of the listed host graph";
+  function functionToText(f) {
+    if (f && typeof f === "object" && f.connects !== undefined) return f.connects === "graph" ? OWN_GRAPH_WORDS : LISTED_GRAPH_WORDS;
+    return f || "";
   }
   function setValue(el, v) { if (document.activeElement !== el && el.value !== v) el.value = v; }
 
@@ -118,7 +126,10 @@
   $("notes").addEventListener("change", function () { const v = $("notes").value; P.commit(function (sc) { sc.notes = v; }, { analyse: false }); });
   $("function").addEventListener("change", function () {
     const v = $("function").value.trim();
-    P.commit(function (sc) { if (v) sc.function = v; else delete sc.function; });
+    P.commit(function (sc) {
+      if (v && v === functionToText(sc.function)) return; // the words of the connectivity form: unchanged
+      if (v) sc.function = v; else delete sc.function;
+    });
   });
   $("promise").addEventListener("change", function () { const v = textToPromise($("promise").value); P.commit(function (sc) { sc.promise = v; }); });
   // Typing applies itself after a pause too (so a reload mid-edit loses nothing); change (Enter,

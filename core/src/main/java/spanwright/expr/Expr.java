@@ -234,4 +234,119 @@ public abstract class Expr {
             return 10;
         }
     }
+    /**
+     * The s–t connectivity function of a graph whose edges are switched by literals: 1 on an input
+     * exactly when s and t are joined by edges whose literal holds. It has no text in the expression
+     * syntax (a scenario file carries it as the object {@code {"connects": …}}, see
+     * docs/scenario-format.md); {@link #toString()} gives words. Edge i joins {@code u[i]}–{@code v[i]}
+     * and is present when variable {@code variable[i]} equals {@code positive[i]}; variable −1 means
+     * always present. Cost of {@link #eval}: O(|E| α(|V|)) with union–find; the arrays are private
+     * copies, the work array makes evaluation not thread-safe (like the solvers, one per thread).
+     */
+    public static final class Connectivity extends Expr {
+        private final int vertexCount;
+        private final int s;
+        private final int t;
+        private final int[] u;
+        private final int[] v;
+        private final int[] variable;
+        private final boolean[] positive;
+        private final int variableCount;
+        private final String words;
+        private final int[] parent;
+
+        public Connectivity(int vertexCount, int s, int t, int[] u, int[] v, int[] variable, boolean[] positive,
+                int variableCount, String words) {
+            if (s == t || s < 0 || t < 0 || s >= vertexCount || t >= vertexCount) {
+                throw new IllegalArgumentException("s and t must be different vertices");
+            }
+            this.vertexCount = vertexCount;
+            this.s = s;
+            this.t = t;
+            this.u = u.clone();
+            this.v = v.clone();
+            this.variable = variable.clone();
+            this.positive = positive.clone();
+            this.variableCount = variableCount;
+            this.words = words;
+            this.parent = new int[vertexCount];
+        }
+
+        public int vertexCount() {
+            return vertexCount;
+        }
+
+        public int s() {
+            return s;
+        }
+
+        public int t() {
+            return t;
+        }
+
+        public int edgeCount() {
+            return u.length;
+        }
+
+        public int u(int e) {
+            return u[e];
+        }
+
+        public int v(int e) {
+            return v[e];
+        }
+
+        /** The edge's variable index, or −1 for an always-present edge. */
+        public int variable(int e) {
+            return variable[e];
+        }
+
+        public boolean positive(int e) {
+            return positive[e];
+        }
+
+        @Override
+        public boolean eval(long mask) {
+            boolean[] x = new boolean[variableCount];
+            for (int i = 0; i < variableCount; i++) {
+                x[i] = ((mask >>> (variableCount - 1 - i)) & 1L) != 0;
+            }
+            return eval(x);
+        }
+
+        /** Truth value on an assignment given variable by variable (any number of variables). */
+        public boolean eval(boolean[] x) {
+            for (int i = 0; i < vertexCount; i++) {
+                parent[i] = i;
+            }
+            for (int e = 0; e < u.length; e++) {
+                if (variable[e] < 0 || x[variable[e]] == positive[e]) {
+                    int a = find(u[e]);
+                    int b = find(v[e]);
+                    if (a != b) {
+                        parent[a] = b;
+                    }
+                }
+            }
+            return find(s) == find(t);
+        }
+
+        private int find(int a) {
+            while (parent[a] != a) {
+                parent[a] = parent[parent[a]];
+                a = parent[a];
+            }
+            return a;
+        }
+
+        @Override
+        public String toString() {
+            return words;
+        }
+
+        @Override
+        int precedence() {
+            return 10;
+        }
+    }
 }

@@ -4,6 +4,7 @@ import spanwright.model.ScenarioException;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.HashSet;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -11,6 +12,7 @@ import spanwright.expr.Expr;
 import spanwright.expr.ExprException;
 import spanwright.expr.ExprParser;
 import spanwright.model.Condition;
+import spanwright.model.ConnectivityForm;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
 import spanwright.model.Promise;
@@ -36,6 +38,12 @@ public final class ScenarioReader {
     public static final int MAX_ENUMERATED_VARIABLES = 24;
     /** Largest number of variables when the promise is an explicit list of inputs. */
     public static final int MAX_LISTED_VARIABLES = 63;
+    /**
+     * Largest number of variables with no promise (the whole cube): beyond
+     * {@link #MAX_ENUMERATED_VARIABLES} such a scenario is analysed by structure, not by
+     * enumeration (graph problems have one variable per edge).
+     */
+    public static final int MAX_VARIABLES = 4096;
 
     private ScenarioReader() {}
 
@@ -99,21 +107,32 @@ public final class ScenarioReader {
         // that well-formed input strings are not blamed for too many variables
         Object po = root.get("promise");
         boolean listed = po instanceof Map && ((Map<?, ?>) po).containsKey("inputs");
-        int limit = listed ? MAX_LISTED_VARIABLES : MAX_ENUMERATED_VARIABLES;
+        boolean cube = po == null || po == Json.NULL;
+        int limit = listed ? MAX_LISTED_VARIABLES : cube ? MAX_VARIABLES : MAX_ENUMERATED_VARIABLES;
         if (n > limit) {
             throw new ScenarioException("too-many-variables", "$.variables", n
-                    + " variables is more than the enumeration limit of " + limit
+                    + " variables is more than the limit of " + limit
                     + (limit == MAX_ENUMERATED_VARIABLES
-                            ? " (2^" + limit + " inputs); list the inputs of interest in \"promise\": {\"inputs\": [...]} to go further"
-                            : ""));
+                            ? " for a promise that is enumerated (2^" + limit + " inputs); drop the promise to analyse"
+                                    + " the whole cube by structure, or list the inputs of interest in"
+                                    + " \"promise\": {\"inputs\": [...]}"
+                            : limit == MAX_VARIABLES ? " variables of a scenario" : ""));
         }
         Promise promise = readPromise(po, variables);
 
         // function
         String functionText = null;
         Expr function = null;
+        Object connectivityHost = null;
         Object fo = root.get("function");
-        if (fo != null && fo != Json.NULL) {
+        Object connects = fo instanceof Map ? ((Map<?, ?>) fo).get("connects") : null;
+        if (connects != null) {
+            connectivityHost = connects;
+        } else if (fo != null && fo != Json.NULL) {
+            if (fo instanceof Map) {
+                throw new ScenarioException("type", "$.function", "\"function\" is an expression (a string) or"
+                        + " {\"connects\": \"graph\"} (s-t connectivity of this graph) or {\"connects\": {a graph}}");
+            }
             functionText = string(fo, "$.function");
             function = expression(functionText, variables, "$.function");
         }
@@ -229,8 +248,39 @@ public final class ScenarioReader {
             }
             edges.add(new Edge(id, u, v, when, w, group, locked));
         }
+        ConnectivityForm connectivity = connectivityHost == null ? null
+                : connectivityForm(connectivityHost, varList);
         return new Scenario(title, notes, variables, functionText, function, promise, vertices, s, t, edges,
-                warnings);
+                warnings, connectivity);
+    }
+
+    /**
+     * Reads {@code "connects"}: the string {@code "graph"} (this scenario's own graph) or a graph
+     * object with the keys of {@code $.graph}, read by the same code (its paths are reported under
+     * {@code $.function.connects}).
+     */
+    private static ConnectivityForm connectivityForm(Object host, List<Object> variableNames) {
+        String path = "$.function.connects";
+        if ("graph".equals(host)) {
+            return ConnectivityForm.OWN_GRAPH;
+        }
+        if (!(host instanceof Map)) {
+            throw new ScenarioException("type", path, "\"connects\" is \"graph\" (this scenario's graph) or a graph"
+                    + " object with s, t, vertices and edges; got " + show(host));
+        }
+        Map<String, Object> doc = new LinkedHashMap<>();
+        doc.put("format", FORMAT);
+        doc.put("version", (double) VERSION);
+        doc.put("variables", variableNames);
+        doc.put("graph", host);
+        Scenario h;
+        try {
+            h = fromJson(doc);
+        } catch (ScenarioException e) {
+            String p = e.path().startsWith("$.graph") ? path + e.path().substring("$.graph".length()) : path;
+            throw new ScenarioException(e.code(), p, "in the host graph: " + e.getMessage());
+        }
+        return ConnectivityForm.of(h.vertices(), h.s(), h.t(), h.edges());
     }
 
     private static boolean isReserved(String name) {

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import spanwright.model.ConnectivityForm;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
 import spanwright.model.Promise;
@@ -35,13 +36,26 @@ public final class ScenarioWriter {
         m.put("title", sc.title());
         m.put("notes", sc.notes());
         m.put("variables", new ArrayList<Object>(sc.variables()));
-        m.put("function", sc.functionText() == null ? Json.NULL : sc.functionText());
+        m.put("function", sc.connectivity() != null ? connects(sc.connectivity(), sc.variableCount())
+                : sc.functionText() == null ? Json.NULL : sc.functionText());
         m.put("promise", promise(sc.promise(), sc.variableCount()));
+        m.put("graph", graph(sc.vertices(), sc.s(), sc.t(), sc.edges()));
+        return m;
+    }
+
+    /** {@code {"connects": "graph"}} or {@code {"connects": {a graph}}}. */
+    private static Map<String, Object> connects(ConnectivityForm c, int n) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("connects", c.ownGraph() ? "graph" : graph(c.vertices(), c.s(), c.t(), c.edges()));
+        return m;
+    }
+
+    private static Map<String, Object> graph(List<Vertex> vertices, int s, int t, List<Edge> edges) {
         Map<String, Object> g = new LinkedHashMap<>();
-        g.put("s", sc.vertices().get(sc.s()).id());
-        g.put("t", sc.vertices().get(sc.t()).id());
+        g.put("s", vertices.get(s).id());
+        g.put("t", vertices.get(t).id());
         List<Object> vs = new ArrayList<>();
-        for (Vertex v : sc.vertices()) {
+        for (Vertex v : vertices) {
             Map<String, Object> vm = new LinkedHashMap<>();
             vm.put("id", v.id());
             if (!Double.isNaN(v.x())) {
@@ -54,11 +68,11 @@ public final class ScenarioWriter {
         }
         g.put("vertices", vs);
         List<Object> es = new ArrayList<>();
-        for (Edge e : sc.edges()) {
+        for (Edge e : edges) {
             Map<String, Object> em = new LinkedHashMap<>();
             em.put("id", e.id());
-            em.put("u", sc.vertices().get(e.u()).id());
-            em.put("v", sc.vertices().get(e.v()).id());
+            em.put("u", vertices.get(e.u()).id());
+            em.put("v", vertices.get(e.v()).id());
             em.put("when", e.when().toString());
             if (e.weight() != 1.0) {
                 em.put("weight", e.weight());
@@ -72,8 +86,7 @@ public final class ScenarioWriter {
             es.add(em);
         }
         g.put("edges", es);
-        m.put("graph", g);
-        return m;
+        return g;
     }
 
     private static Object promise(Promise p, int n) {

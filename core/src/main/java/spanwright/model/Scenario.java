@@ -26,18 +26,31 @@ public final class Scenario {
     private final List<Edge> edges;
     private final List<String> warnings;
     private final Map<String, Integer> vertexIndex;
+    private final ConnectivityForm connectivity;
 
     public Scenario(String title, String notes, List<String> variables, String functionText,
             Expr function, Promise promise, List<Vertex> vertices, int s, int t, List<Edge> edges,
             List<String> warnings) {
+        this(title, notes, variables, functionText, function, promise, vertices, s, t, edges, warnings, null);
+    }
+
+    /**
+     * A scenario whose target function is the s–t connectivity form {@code connectivity} (which
+     * replaces {@code functionText} and {@code function} when not null).
+     */
+    public Scenario(String title, String notes, List<String> variables, String functionText,
+            Expr function, Promise promise, List<Vertex> vertices, int s, int t, List<Edge> edges,
+            List<String> warnings, ConnectivityForm connectivity) {
         if (s == t) {
             throw new IllegalArgumentException("s and t must differ");
         }
         this.title = title == null ? "" : title;
         this.notes = notes == null ? "" : notes;
         this.variables = List.copyOf(variables);
-        this.functionText = functionText;
-        this.function = function;
+        this.connectivity = connectivity;
+        this.functionText = connectivity == null ? functionText : connectivity.words();
+        this.function = connectivity == null ? function
+                : connectivity.toExpr(vertices.size(), s, t, edges, variables.size());
         this.promise = promise == null ? Promise.NONE : promise;
         this.vertices = List.copyOf(vertices);
         this.s = s;
@@ -75,6 +88,14 @@ public final class Scenario {
     /** The target function, or null when none is given. */
     public Expr function() {
         return function;
+    }
+
+    /**
+     * The target function's structural form (s–t connectivity of a host graph), or null when the
+     * function is an expression or absent.
+     */
+    public ConnectivityForm connectivity() {
+        return connectivity;
     }
 
     public Promise promise() {
@@ -121,12 +142,12 @@ public final class Scenario {
             e.add(edges.get(i).withWeight(weights[i]));
         }
         return new Scenario(title, notes, variables, functionText, function, promise, vertices, s, t,
-                e, warnings);
+                e, warnings, connectivity);
     }
 
     /** A copy with a new list of edges. */
     public Scenario withEdges(List<Edge> newEdges) {
         return new Scenario(title, notes, variables, functionText, function, promise, vertices, s, t,
-                newEdges, warnings);
+                newEdges, warnings, connectivity);
     }
 }

@@ -21,6 +21,7 @@ import org.jgrapht.graph.builder.GraphTypeBuilder;
 import spanwright.expr.ExprParser;
 import spanwright.model.ScenarioException;
 import spanwright.model.Condition;
+import spanwright.model.ConnectivityForm;
 import spanwright.model.Edge;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;
@@ -118,7 +119,6 @@ public final class HostGraphBuilder {
         h.s = host.vertices().get(host.s()).id();
         h.t = host.vertices().get(host.t()).id();
         h.description = "a given graph (" + h.ids.size() + " vertices, " + h.edges.size() + " edges)";
-        ScenarioDraft.checkVariableCount(h.edges.size(), "$.scenario.graph.edges");
         boolean placed = true;
         for (double[] p : h.xy) {
             placed &= !Double.isNaN(p[0]) && !Double.isNaN(p[1]);
@@ -219,11 +219,11 @@ public final class HostGraphBuilder {
                 edgeCount = m;
             }
         }
-        if (edgeCount > spanwright.io.ScenarioReader.MAX_ENUMERATED_VARIABLES) {
+        if (edgeCount > spanwright.io.ScenarioReader.MAX_VARIABLES) {
             throw new ScenarioException("too-many-variables", "$.size", family + " " + show(size) + " has "
                     + (edgeCount == Long.MAX_VALUE ? "too many" : Long.toString(edgeCount)) + " edges, so "
-                    + "as many variables, more than the enumeration limit of "
-                    + spanwright.io.ScenarioReader.MAX_ENUMERATED_VARIABLES);
+                    + "as many variables, more than the limit of " + spanwright.io.ScenarioReader.MAX_VARIABLES
+                    + "; choose a smaller size");
         }
         h.description = family + " " + show(size);
         if (family.equals("random")) {
@@ -452,19 +452,9 @@ public final class HostGraphBuilder {
             promise = Promise.weights(weights);
             promiseText = "at most " + atMostMissing + " of the " + m + " edges missing";
         }
+        // the number of simple s-t paths, a statistic only (capped); the function is the
+        // connectivity form, never a list of paths
         List<List<Integer>> paths = simplePaths(h.ids.size(), h.edges, s, t);
-        String function = null;
-        if (paths != null) {
-            StringBuilder sb = new StringBuilder();
-            for (List<Integer> path : paths) {
-                sb.append(sb.length() > 0 ? " | " : "").append(paths.size() > 1 && path.size() > 1 ? "(" : "");
-                for (int k = 0; k < path.size(); k++) {
-                    sb.append(k > 0 ? " & " : "").append(vars.get(path.get(k)));
-                }
-                sb.append(paths.size() > 1 && path.size() > 1 ? ")" : "");
-            }
-            function = paths.isEmpty() ? "0" : sb.toString();
-        }
         Map<String, Object> stats = new LinkedHashMap<>();
         stats.put("family", family);
         if (size != null) {
@@ -477,16 +467,13 @@ public final class HostGraphBuilder {
         stats.put("s", sName);
         stats.put("t", tName);
         stats.put("paths", paths == null ? null : (Object) paths.size());
-        if (paths == null) {
-            stats.put("functionOmitted", "more than " + MAX_PATHS_IN_FUNCTION + " simple s-t paths");
-        }
         stats.put("promise", promiseText);
         String title = "st-connectivity on " + h.description + ", s = " + sName + ", t = " + tName;
-        String notes = "One variable per host edge (1 = the edge is present). "
-                + (function == null ? "The function is s-t connectivity itself (too many paths to write out)."
-                        : "The function is the OR over the " + paths.size() + " simple s-t paths.")
-                + (atMostMissing >= 0 ? " Promise: " + promiseText + "." : "");
-        Scenario sc = d.build(title, notes, vars, function, promise, s, t, "$.size");
+        String notes = "One variable per host edge (1 = the edge is present). The function is s-t connectivity"
+                + " of this graph." + (atMostMissing >= 0 ? " Promise: " + promiseText + "." : "");
+        d.allowVariables(atMostMissing >= 0 ? spanwright.io.ScenarioReader.MAX_ENUMERATED_VARIABLES
+                : spanwright.io.ScenarioReader.MAX_VARIABLES);
+        Scenario sc = d.build(title, notes, vars, ConnectivityForm.OWN_GRAPH, promise, s, t, "$.size");
         return new Built(sc, stats);
     }
 

@@ -10,6 +10,7 @@ import spanwright.expr.ExprParser;
 import spanwright.model.ScenarioException;
 import spanwright.io.ScenarioReader;
 import spanwright.model.Condition;
+import spanwright.model.ConnectivityForm;
 import spanwright.model.Edge;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;
@@ -121,6 +122,17 @@ final class ScenarioDraft {
      */
     Scenario build(String title, String notes, List<String> variables, String functionText, Promise promise,
             int s, int t, String path) {
+        return build(title, notes, variables, functionText, null, promise, s, t, path);
+    }
+
+    /** The scenario with the connectivity form as its function. */
+    Scenario build(String title, String notes, List<String> variables, ConnectivityForm connectivity,
+            Promise promise, int s, int t, String path) {
+        return build(title, notes, variables, null, connectivity, promise, s, t, path);
+    }
+
+    private Scenario build(String title, String notes, List<String> variables, String functionText,
+            ConnectivityForm connectivity, Promise promise, int s, int t, String path) {
         if (maxVariables > ScenarioReader.MAX_ENUMERATED_VARIABLES) {
             if (variables.size() > maxVariables) {
                 throw new ScenarioException("too-many-variables", path, "the construction has " + variables.size()
@@ -141,7 +153,8 @@ final class ScenarioDraft {
         for (int i = 0; i < ids.size(); i++) {
             vs.add(new Vertex(ids.get(i), positions.get(i)[0], positions.get(i)[1]));
         }
-        return new Scenario(title, notes, variables, functionText, function, promise, vs, s, t, edges, null);
+        return new Scenario(title, notes, variables, functionText, function, promise, vs, s, t, edges, null,
+                connectivity);
     }
 
     /** Refuses more variables than the reader enumerates, naming {@code path}. */

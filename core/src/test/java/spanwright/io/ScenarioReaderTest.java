@@ -444,11 +444,59 @@ class ScenarioReaderTest {
         // Source: the documented limit ScenarioReader.MAX_ENUMERATED_VARIABLES = 24 (2^24 inputs).
         assertEquals(24, ScenarioReader.MAX_ENUMERATED_VARIABLES);
         assertEquals(24, ScenarioReader.read(withVariables(24, null)).variableCount());
-        assertRejected(withVariables(25, null), "too-many-variables", "$.variables", "25 variables",
-            "limit of 24", "\"inputs\"");
-        assertRejected(withVariables(30, "x0 | x1"), "too-many-variables", "$.variables", "limit of 24");
+        assertRejected(withVariables(30, "x0 | x1"), "too-many-variables", "$.variables", "limit of 24",
+            "drop the promise", "\"inputs\"");
         assertRejected(withVariables(25, obj("weights", List.of(1.0))), "too-many-variables", "$.variables",
             "limit of 24");
+    }
+
+    @Test
+    void withoutAPromiseTheWholeCubeMayHaveThousandsOfVariables() {
+        // Source: the documented limit ScenarioReader.MAX_VARIABLES = 4096 (the whole cube is then
+        // analysed by structure, not enumerated).
+        assertEquals(4096, ScenarioReader.MAX_VARIABLES);
+        assertEquals(25, ScenarioReader.read(withVariables(25, null)).variableCount());
+        assertEquals(4096, ScenarioReader.read(withVariables(4096, null)).variableCount());
+        assertRejected(withVariables(4097, null), "too-many-variables", "$.variables", "4097 variables",
+            "limit of 4096");
+    }
+
+    @Test
+    void theConnectivityFormReadsWritesAndEvaluates() {
+        // Derived: in the graph s–m (a), m–t (b), s–t (c), s and t are connected exactly when
+        // (a and b) or c.
+        String own = "{\"format\":\"spanwright-scenario\",\"version\":1,\"variables\":[\"a\",\"b\",\"c\"],"
+                + "\"function\":{\"connects\":\"graph\"},\"graph\":{\"s\":\"s\",\"t\":\"t\",\"vertices\":"
+                + "[{\"id\":\"s\"},{\"id\":\"m\"},{\"id\":\"t\"}],\"edges\":[{\"u\":\"s\",\"v\":\"m\",\"when\":\"a\"},"
+                + "{\"u\":\"m\",\"v\":\"t\",\"when\":\"b\"},{\"u\":\"s\",\"v\":\"t\",\"when\":\"c\"}]}}";
+        Scenario sc = ScenarioReader.read(own);
+        assertTrue(sc.connectivity().ownGraph());
+        for (long x = 0; x < 8; x++) {
+            boolean a = (x & 4) != 0;
+            boolean b = (x & 2) != 0;
+            boolean c = (x & 1) != 0;
+            assertEquals(a && b || c, sc.function().eval(x), "input " + x);
+        }
+        assertEquals(Boolean.TRUE, Analysis.run(sc).correct());
+        Scenario back = RoundTrip.check(sc);
+        assertTrue(back.connectivity().ownGraph());
+        assertTrue(ScenarioWriter.write(sc).contains("\"connects\": \"graph\""), ScenarioWriter.write(sc));
+        // another listed host graph: a single edge s–t switched by c; the graph above then decides
+        // "c" only where a & b is 0, so the reduction is wrong on inputs 110 (derived).
+        String other = own.replace("{\"connects\":\"graph\"}", "{\"connects\":{\"s\":\"p\",\"t\":\"q\",\"vertices\":"
+                + "[{\"id\":\"p\"},{\"id\":\"q\"}],\"edges\":[{\"u\":\"p\",\"v\":\"q\",\"when\":\"c\"}]}}");
+        Scenario o = ScenarioReader.read(other);
+        assertFalse(o.connectivity().ownGraph());
+        AnalysisResult r = Analysis.run(o);
+        assertEquals(1, r.counterexampleCount());
+        assertEquals(6L, r.counterexamples().get(0));
+        Scenario oBack = RoundTrip.check(o);
+        assertEquals(2, oBack.connectivity().vertices().size());
+        // errors inside the host graph name their path under $.function.connects
+        assertRejected(other.replace("\"v\":\"q\",\"when\":\"c\"", "\"v\":\"q\",\"when\":\"z\""), "unknown-variable",
+            "$.function.connects.edges[0].when");
+        assertRejected(own.replace("{\"connects\":\"graph\"}", "{\"connects\":7}"), "type", "$.function.connects");
+        assertRejected(own.replace("{\"connects\":\"graph\"}", "{\"links\":1}"), "type", "$.function");
     }
 
     @Test

@@ -196,16 +196,16 @@ class HostGraphBuilderTest {
         assertEquals(50.0, sc.vertices().get(1).x());
         assertEquals(3, sc.edges().size());
         assertEquals(Boolean.TRUE, Analysis.run(sc).correct());
-        assertEquals("home_ford & ford_mill_2 | home_ford & ford_mill_2.2", sc.functionText().replace("(", "").replace(")", ""));
+        assertTrue(sc.connectivity().ownGraph(), "the function is s-t connectivity of the graph, not a list of paths");
     }
 
     @Test
-    void tooManyPathsLeavesTheFunctionOut() {
+    void theFunctionIsConnectivityAndThePathCountAStatistic() {
         // Derived: K_7 has Σ_{k=0..5} 5!/(5−k)! = 326 simple paths between two vertices, more than
-        // the 256 written out; the scenario then has no function (the graph defines it).
+        // the 256 the statistic counts; the function is the connectivity form either way.
         Built b = host("complete", 7);
         assertNull(b.stats().get("paths"));
-        assertNull(b.scenario().function());
+        assertTrue(b.scenario().connectivity().ownGraph());
         // K_6: Σ_{k=0..4} 4!/(4−k)! = 1 + 4 + 12 + 24 + 24 = 65 paths
         assertEquals(65, host("complete", 6).stats().get("paths"));
     }
@@ -222,10 +222,17 @@ class HostGraphBuilderTest {
         assertThrows(ScenarioException.class, () -> host("bipartite", 0, 3));
         ScenarioException random = assertThrows(ScenarioException.class, () -> host("random", 4, 7));
         assertTrue(random.getMessage().contains("n(n-1)/2 = 6"), random.getMessage());
-        ScenarioException big = assertThrows(ScenarioException.class, () -> host("grid", 5, 5));
+        // beyond enumeration the builder still builds (the analysis then works by structure) ...
+        assertEquals(40, host("grid", 5, 5).scenario().variableCount());
+        assertEquals(32, host("hypercube", 4).scenario().variableCount());
+        // ... up to the reader's limit of 4096 variables: K_100 has 4950 edges
+        ScenarioException big = assertThrows(ScenarioException.class, () -> host("complete", 100));
         assertEquals("too-many-variables", big.code());
-        assertTrue(big.getMessage().contains("40 edges"), big.getMessage());
-        assertThrows(ScenarioException.class, () -> host("hypercube", 4)); // 32 edges
+        assertTrue(big.getMessage().contains("4950 edges"), big.getMessage());
+        // with a promise the domain is enumerated, so the enumeration limit applies
+        ScenarioException promised = assertThrows(ScenarioException.class,
+                () -> HostGraphBuilder.family("grid", new int[] {5, 5}, null, null, 1, 2));
+        assertEquals("too-many-variables", promised.code());
         ScenarioException arity = assertThrows(ScenarioException.class, () -> host("grid", 3));
         assertTrue(arity.getMessage().contains("two sizes"), arity.getMessage());
         ScenarioException family = assertThrows(ScenarioException.class, () -> host("torus", 3, 3));
