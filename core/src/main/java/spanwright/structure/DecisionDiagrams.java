@@ -397,7 +397,7 @@ public final class DecisionDiagrams {
         if (x instanceof Expr.Counting) {
             return ((Expr.Counting) x).args;
         }
-        throw new IllegalArgumentException("unknown expression kind: " + x.getClass().getSimpleName());
+        throw new IllegalArgumentException("an expression kind the decision diagrams do not know: " + x);
     }
 
     private int binary(Expr.Op op, int a, int b) {

@@ -37,7 +37,7 @@ public final class DiagramBench {
         out.println("reduction check by decision diagrams, k×k grid, one variable per edge (budget "
                 + budget + " nodes)");
         out.println(pad("grid", 6) + pad("vars", 6) + pad("f", 22) + pad("graph nodes", 13)
-                + pad("f nodes", 10) + pad("counterexamples", 26) + "seconds");
+                + pad("f nodes", 10) + pad("counterexamples", 34) + "seconds");
         for (int k : sizes) {
             Scenario grid = grid(k, false, -1);
             for (int wrong = -1; wrong <= 0; wrong++) {
@@ -49,7 +49,7 @@ public final class DiagramBench {
                         + pad(wrong < 0 ? "its own connectivity" : "one literal negated", 22)
                         + pad(Long.toString(r.graphNodes()), 13) + pad(Long.toString(r.functionNodes()), 10)
                         + pad(r.status() == DiagramCheck.Status.CHECKED ? r.counterexamples().toString()
-                                : r.status().name(), 26)
+                                : r.status().name(), 34)
                         + NumberText.sig(seconds, 3));
             }
         }

@@ -77,40 +77,44 @@ class DecisionDiagramsTest {
     @Test
     void gridConnectivityIsTheCanonicalNodeOfItsPathDnf() {
         // canonicity of ROBDDs (Bryant, IEEE Trans. Computers 1986): equal functions, equal node.
-        // The DNF over the simple s–t paths of the 3×3 grid (found here by depth-first search)
+        // The DNF over the simple s–t paths of the k×k grid (found here by depth-first search)
         // is the same function as connectivity, built by a different route.
-        int[][] g = ConnectivityBruteForce.grid(3);
-        int m = g[0].length;
-        List<String> names = new ArrayList<>();
-        for (int i = 0; i < m; i++) {
-            names.add("e" + i);
-        }
-        List<List<Integer>> paths = new ArrayList<>();
-        simplePaths(9, g[0], g[1], 0, 8, new boolean[9], new ArrayList<>(), paths);
-        // OEIS A007764 (from memory): 12 corner-to-corner self-avoiding paths in the 3×3 grid
-        assertEquals(12, paths.size());
-        StringBuilder dnf = new StringBuilder();
-        for (List<Integer> p : paths) {
-            dnf.append(dnf.length() > 0 ? " | " : "").append('(');
-            for (int i = 0; i < p.size(); i++) {
-                dnf.append(i > 0 ? " & " : "").append(names.get(p.get(i)));
+        // OEIS A007764 (from memory): 12 and 184 corner-to-corner self-avoiding paths for k = 3, 4
+        int[] pathCounts = {0, 0, 2, 12, 184};
+        for (int k = 2; k <= 4; k++) {
+            int[][] g = ConnectivityBruteForce.grid(k);
+            int m = g[0].length;
+            int last = k * k - 1;
+            List<String> names = new ArrayList<>();
+            for (int i = 0; i < m; i++) {
+                names.add("e" + i);
             }
-            dnf.append(')');
+            List<List<Integer>> paths = new ArrayList<>();
+            simplePaths(k * k, g[0], g[1], 0, last, new boolean[k * k], new ArrayList<>(), paths);
+            assertEquals(pathCounts[k], paths.size());
+            StringBuilder dnf = new StringBuilder();
+            for (List<Integer> p : paths) {
+                dnf.append(dnf.length() > 0 ? " | " : "").append('(');
+                for (int i = 0; i < p.size(); i++) {
+                    dnf.append(i > 0 ? " & " : "").append(names.get(p.get(i)));
+                }
+                dnf.append(')');
+            }
+            DecisionDiagrams dd = new DecisionDiagrams(m, 1_000_000);
+            int conn = dd.connectivity(k * k, 0, last, g[0], g[1], identity(m), all(m, true));
+            int viaDnf = fromText(dd, dnf.toString(), names);
+            assertEquals(conn, viaDnf);
+            // the same graph listed in reverse order, vertices renumbered backwards, s and t swapped
+            int[] ru = new int[m];
+            int[] rv = new int[m];
+            int[] rvar = new int[m];
+            for (int i = 0; i < m; i++) {
+                ru[i] = last - g[1][m - 1 - i];
+                rv[i] = last - g[0][m - 1 - i];
+                rvar[i] = m - 1 - i;
+            }
+            assertEquals(conn, dd.connectivity(k * k, 0, last, ru, rv, rvar, all(m, true)));
         }
-        DecisionDiagrams dd = new DecisionDiagrams(m, 1_000_000);
-        int conn = dd.connectivity(9, 0, 8, g[0], g[1], identity(m), all(m, true));
-        int viaDnf = fromText(dd, dnf.toString(), names);
-        assertEquals(conn, viaDnf);
-        // the same graph listed in reverse order, vertices renumbered backwards, s and t swapped
-        int[] ru = new int[m];
-        int[] rv = new int[m];
-        int[] rvar = new int[m];
-        for (int i = 0; i < m; i++) {
-            ru[i] = 8 - g[1][m - 1 - i];
-            rv[i] = 8 - g[0][m - 1 - i];
-            rvar[i] = m - 1 - i;
-        }
-        assertEquals(conn, dd.connectivity(9, 0, 8, ru, rv, rvar, all(m, true)));
     }
 
     private static void simplePaths(int n, int[] u, int[] v, int at, int t, boolean[] seen, List<Integer> path,
