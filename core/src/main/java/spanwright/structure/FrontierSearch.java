@@ -31,9 +31,8 @@ final class FrontierSearch {
     private static final int S_END = 2;
     private static final int T_END = 3;
     private static final int FIRST_LABEL = 4;
-    private static final int FRESH_U = 1 << 20;
-    private static final int FRESH_V = FRESH_U + 1;
-    private static final int NEW_LABEL = FRESH_U + 2;
+    /** Largest per-level budget honoured (keeps the arrays' indices in range). */
+    static final long MAX_BUDGET = 1L << 28;
     private static final int ROOT_S = 0;
     private static final int ROOT_T = 1;
 
@@ -56,13 +55,20 @@ final class FrontierSearch {
     private long stored;
     private long peak;
     private final boolean bond;
+    /** Temporary labels, above every canonical one (those are below 4 + width). */
+    private final int freshU;
+    private final int freshV;
+    private final int newLabel;
 
     FrontierSearch(Component c, FrontierPlan plan, long maxStates, boolean bond) {
         this.c = c;
         this.plan = plan;
-        this.maxStates = maxStates;
+        this.maxStates = Math.min(maxStates, MAX_BUDGET);
         this.bond = bond;
         int w = Math.max(1, plan.width);
+        freshU = FIRST_LABEL + w + 1;
+        freshV = freshU + 1;
+        newLabel = freshU + 2;
         int maxCode = bond ? 2 * w + 1 : FIRST_LABEL + w / 2;
         int bt = 1;
         while ((1 << bt) <= maxCode) {
@@ -76,8 +82,8 @@ final class FrontierSearch {
         b = new int[w];
         side = new int[w];
         comp = new int[w];
-        relabel = new int[NEW_LABEL + 1];
-        seenStamp = new int[NEW_LABEL + 1];
+        relabel = new int[newLabel + 1];
+        seenStamp = new int[newLabel + 1];
     }
 
     private void decode(StateSet set, int idx, int len, int[] out) {
@@ -114,7 +120,7 @@ final class FrontierSearch {
         decisions.add(d);
         stored += next.size;
         peak = Math.max(peak, next.size);
-        if (stored > 64 * maxStates) {
+        if (stored > 64 * maxStates) { // maxStates ≤ 2^28, no overflow
             throw new TooWideException(plan.width, maxStates, "frontier search for the heaviest " + what
                     + " keeps more than " + (64 * maxStates) + " back-pointers over all levels by edge "
                     + (level + 1) + " of " + plan.m + " (widest frontier " + plan.width
@@ -178,8 +184,8 @@ final class FrontierSearch {
                 if (cu == FULL || cv == FULL) {
                     continue;
                 }
-                int lu = cu != 0 ? cu : u == c.s ? S_END : u == c.t ? T_END : FRESH_U;
-                int lv = cv != 0 ? cv : v == c.s ? S_END : v == c.t ? T_END : FRESH_V;
+                int lu = cu != 0 ? cu : u == c.s ? S_END : u == c.t ? T_END : freshU;
+                int lv = cv != 0 ? cv : v == c.s ? S_END : v == c.t ? T_END : freshV;
                 if (lu == lv) {
                     continue; // both ends of one fragment: a cycle
                 }
@@ -206,7 +212,7 @@ final class FrontierSearch {
                 }
                 int merged = lu == S_END || lv == S_END ? S_END
                         : lu == T_END || lv == T_END ? T_END
-                        : lu < FRESH_U ? lu : lv < FRESH_U ? lv : NEW_LABEL;
+                        : lu < freshU ? lu : lv < freshU ? lv : newLabel;
                 for (int x = 0; x < len; x++) {
                     if (b[x] > FULL && (b[x] == lu || b[x] == lv)) {
                         b[x] = merged;
@@ -313,11 +319,11 @@ final class FrontierSearch {
                         }
                         if (inU) {
                             side[pu] = su;
-                            comp[pu] = u == c.s ? ROOT_S : u == c.t ? ROOT_T : FRESH_U;
+                            comp[pu] = u == c.s ? ROOT_S : u == c.t ? ROOT_T : freshU;
                         }
                         if (inV) {
                             side[pv] = sv;
-                            comp[pv] = v == c.s ? ROOT_S : v == c.t ? ROOT_T : FRESH_V;
+                            comp[pv] = v == c.s ? ROOT_S : v == c.t ? ROOT_T : freshV;
                         }
                         double nv = val;
                         if (side[pu] == side[pv]) {
