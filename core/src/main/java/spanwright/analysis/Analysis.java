@@ -5,6 +5,7 @@ import spanwright.electric.ElectricalNetwork;
 import spanwright.electric.Witness;
 import spanwright.model.Edge;
 import spanwright.model.Scenario;
+import spanwright.model.ScenarioException;
 
 /**
  * The main job, one entry for the command-line tool and the page alike: enumerate the scenario's
@@ -16,6 +17,78 @@ import spanwright.model.Scenario;
  */
 public final class Analysis {
     private Analysis() {}
+
+    /** How to analyse: choose automatically, enumerate the domain, or compute by structure. */
+    public enum Method {
+        AUTO("auto"), ENUMERATE("enumerate"), STRUCTURE("structure");
+
+        /** The name on the command line and in JSON. */
+        public final String word;
+
+        Method(String word) {
+            this.word = word;
+        }
+
+        /** The method named {@code word}, or null. */
+        public static Method of(String word) {
+            for (Method m : values()) {
+                if (m.word.equals(word)) {
+                    return m;
+                }
+            }
+            return null;
+        }
+    }
+
+    /** Largest domain {@link Method#AUTO} enumerates: beyond it, structure is cheaper. */
+    public static final int AUTO_ENUMERATION_VARIABLES = 20;
+
+    /** The method that will run, and why, in one line a researcher understands. */
+    public record Choice(Method method, String reason) {}
+
+    /**
+     * Chooses the method: enumeration while it is cheapest (at most
+     * {@link #AUTO_ENUMERATION_VARIABLES} variables, or a promise), structure beyond.
+     *
+     * @throws ScenarioException {@code method} when the requested method cannot run on this scenario,
+     *     with the reason and what to use instead
+     */
+    public static Choice choose(Scenario sc, Method requested) {
+        int n = sc.variableCount();
+        String structureRefusal = StructuralAnalysis.refusal(sc);
+        boolean listed = sc.promise().kind() == spanwright.model.Promise.Kind.INPUTS;
+        boolean enumerable = listed || n <= spanwright.io.ScenarioReader.MAX_ENUMERATED_VARIABLES;
+        switch (requested) {
+            case ENUMERATE:
+                if (!enumerable) {
+                    throw new ScenarioException("method", "$.variables", n + " variables: 2^" + n
+                            + " inputs are too many to enumerate (limit 2^"
+                            + spanwright.io.ScenarioReader.MAX_ENUMERATED_VARIABLES + "); use the structural method"
+                            + " (--method structure)");
+                }
+                return new Choice(Method.ENUMERATE, "enumeration, as asked: every input of the domain");
+            case STRUCTURE:
+                if (structureRefusal != null) {
+                    throw new ScenarioException("method", "$.promise", structureRefusal
+                            + (enumerable ? "; use --method enumerate" : ""));
+                }
+                return new Choice(Method.STRUCTURE, "structure, as asked: worst cases without enumerating the cube");
+            default:
+                boolean promised = sc.promise().kind() != spanwright.model.Promise.Kind.NONE;
+                if (structureRefusal != null || promised || n <= AUTO_ENUMERATION_VARIABLES) {
+                    if (!enumerable) {
+                        throw new ScenarioException("method", "$.promise", structureRefusal);
+                    }
+                    return new Choice(Method.ENUMERATE, listed ? "enumeration: the promise lists its inputs"
+                            : n <= AUTO_ENUMERATION_VARIABLES ? "enumeration: 2^" + n + " inputs is cheapest to list"
+                                    : promised ? "enumeration: the promise's domain is listed (--method structure"
+                                            + " runs branch and bound under it)" : "enumeration: " + structureRefusal);
+                }
+                return new Choice(Method.STRUCTURE, "structure: 2^" + n
+                        + " inputs are too many to list cheaply, so worst cases come from the graph's paths, bonds"
+                        + " and decision diagrams");
+        }
+    }
 
     /** Analyses the whole domain. Cost: |domain| × O(|E| + |V|³). */
     public static AnalysisResult run(Scenario scenario) {

@@ -3,7 +3,7 @@ package spanwright.analysis;
 import spanwright.electric.Witness;
 import spanwright.model.Inputs;
 
-/** One input with its present edges, f(x) (null if no function) and its witness. Immutable. */
+/** One input (mask −1 beyond 63 variables) with its present edges, f(x) (null if no function) and its witness. Immutable. */
 public final class InputDetail {
     public final long mask;
     public final String input;
@@ -12,8 +12,13 @@ public final class InputDetail {
     public final Witness witness;
 
     InputDetail(long mask, int n, boolean[] present, Boolean f, Witness witness) {
+        this(mask, Inputs.format(mask, n), present, f, witness);
+    }
+
+    /** An input of any number of variables; {@code mask} is −1 when it has more than 63. */
+    InputDetail(long mask, String input, boolean[] present, Boolean f, Witness witness) {
         this.mask = mask;
-        this.input = Inputs.format(mask, n);
+        this.input = input;
         this.present = present;
         this.f = f;
         this.witness = witness;

@@ -79,17 +79,22 @@ public final class Main {
     static String usage() {
         return "usage: java -jar spanwright.jar <command> [options]\n"
                 + "\n"
-                + "  analyze [FILE] [--json] [--inputs]\n"
-                + "      Enumerate the scenario's inputs, check the reduction, compute every witness size\n"
-                + "      (R on positive inputs, C on negative inputs) and the bound sqrt(W+ W-).\n"
-                + "      With no FILE, the built-in default scenario. --json: machine-readable output;\n"
-                + "      --inputs: add every input's row.\n"
+                + "  analyze [FILE] [--json] [--inputs] [--method auto|enumerate|structure] [--input BITS]\n"
+                + "      Check the reduction, find the worst inputs with their witnesses (R on positive inputs,\n"
+                + "      C on negative inputs) and the bound sqrt(W+ W-). Up to 20 variables every input is\n"
+                + "      enumerated; beyond, W+ and W- come from the graph's structure (heaviest path and bond,\n"
+                + "      branch and bound, decision diagrams). With no FILE, the built-in default scenario.\n"
+                + "      --json: machine-readable; --inputs: every input's row (enumeration only);\n"
+                + "      --input BITS: one input's witness, at any size.\n"
                 + "  optimize [FILE] [--starts K] [--seed S] [--iterations N] [--seconds T] [--tie literal]\n"
                 + "           [--json] [-o OUT.json]\n"
                 + "      Choose edge weights that lower sqrt(W+ W-) (monotone descent, with certificates);\n"
                 + "      -o writes the scenario with the new weights.\n"
                 + "  bench [--vars 14] [--vertices 24] [--edges 48] [--scenarios 8] [--seed 1] [--rounds 5]\n"
                 + "      Inputs per second of the analysis on seeded random scenarios (one core).\n"
+                + "  bench structure [\"grid 8x8\" \"complete 16\" ...]\n"
+                + "      Seconds of the structural analysis (exact W+ and W- with witnesses) on grids and complete\n"
+                + "      graphs, and of the reduction check by decision diagrams (one core).\n"
                 + BuildCommand.usage()
                 + BoundsCommand.usage()
                 + SweepCommand.usage()
@@ -123,11 +128,27 @@ public final class Main {
         boolean json = false;
         boolean inputs = false;
         String file = null;
-        for (String a : args) {
+        Analysis.Method method = Analysis.Method.AUTO;
+        String input = null;
+        for (int i = 0; i < args.size(); i++) {
+            String a = args.get(i);
             if (a.equals("--json")) {
                 json = true;
             } else if (a.equals("--inputs")) {
                 inputs = true;
+            } else if (a.equals("--method") || a.equals("--input")) {
+                if (i + 1 >= args.size()) {
+                    throw new UsageException("analyze: " + a + " needs a value");
+                }
+                String value = args.get(++i);
+                if (a.equals("--input")) {
+                    input = value;
+                } else {
+                    method = Analysis.Method.of(value);
+                    if (method == null) {
+                        throw new UsageException("analyze: --method is auto, enumerate or structure, got \"" + value + "\"");
+                    }
+                }
             } else if (a.startsWith("-")) {
                 throw new UsageException("analyze: unknown option " + a);
             } else if (file == null) {
@@ -139,6 +160,13 @@ public final class Main {
         Scenario sc = ScenarioReader.read(readScenarioText(file));
         for (String w : sc.warnings()) {
             err.println("spanwright: warning: " + w);
+        }
+        if (input != null) {
+            return AnalyzeMore.oneInput(sc, input, json, out);
+        }
+        Analysis.Choice choice = Analysis.choose(sc, method);
+        if (choice.method() == Analysis.Method.STRUCTURE) {
+            return AnalyzeMore.structure(sc, choice, json, inputs, out);
         }
         AnalysisResult r = Analysis.run(sc);
         if (json) {

@@ -12,6 +12,7 @@ import java.util.List;
 import java.util.Map;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisRun;
+import spanwright.analysis.StructuralAnalysis;
 import spanwright.domain.InputDomain;
 import spanwright.model.Scenario;
 
@@ -98,6 +99,10 @@ public final class JsonFacade {
     public static String analyze(String scenarioJson, boolean withInputs) {
         try {
             Scenario sc = ScenarioReader.read(scenarioJson);
+            Analysis.Choice choice = Analysis.choose(sc, Analysis.Method.AUTO);
+            if (choice.method() == Analysis.Method.STRUCTURE) {
+                return ok("result", StructureJson.analysis(StructuralAnalysis.run(sc), choice));
+            }
             return ok("result", ResultJson.analysis(Analysis.run(sc), withInputs));
         } catch (RuntimeException e) {
             return fail(e);

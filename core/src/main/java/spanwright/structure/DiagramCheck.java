@@ -4,7 +4,7 @@ import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.function.ToIntFunction;
-import spanwright.model.Edge;
+import spanwright.expr.Expr;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;
 import spanwright.model.ScenarioException;
@@ -87,6 +87,22 @@ public final class DiagramCheck {
             return refused(Status.NO_FUNCTION, "the scenario gives no target function, so there is nothing "
                     + "to check the graph against; add a function");
         }
+        if (sc.function() instanceof Expr.Connectivity) {
+            Expr.Connectivity c = (Expr.Connectivity) sc.function();
+            int m = c.edgeCount();
+            int[] u = new int[m];
+            int[] v = new int[m];
+            int[] var = new int[m];
+            boolean[] positive = new boolean[m];
+            for (int i = 0; i < m; i++) {
+                u[i] = c.u(i);
+                v[i] = c.v(i);
+                var[i] = c.variable(i);
+                positive[i] = c.positive(i);
+            }
+            return run(sc, maxNodes, dd -> dd.connectivity(c.vertexCount(), c.s(), c.t(), u, v, var, positive),
+                    "f as the connectivity of its host graph");
+        }
         return run(sc, maxNodes, dd -> dd.fromExpr(sc.function()), "f from its expression");
     }
 
@@ -109,20 +125,8 @@ public final class DiagramCheck {
 
     /** The s–t connectivity diagram of {@code sc}'s graph in the manager {@code dd}. */
     public static int connectivity(DecisionDiagrams dd, Scenario sc) {
-        List<Edge> edges = sc.edges();
-        int m = edges.size();
-        int[] u = new int[m];
-        int[] v = new int[m];
-        int[] var = new int[m];
-        boolean[] positive = new boolean[m];
-        for (int i = 0; i < m; i++) {
-            Edge e = edges.get(i);
-            u[i] = e.u();
-            v[i] = e.v();
-            var[i] = e.when().variable();
-            positive[i] = e.when().positive();
-        }
-        return dd.connectivity(sc.vertexCount(), sc.s(), sc.t(), u, v, var, positive);
+        EdgeArrays a = EdgeArrays.of(sc);
+        return dd.connectivity(sc.vertexCount(), sc.s(), sc.t(), a.u(), a.v(), a.variable(), a.positive());
     }
 
     private static Result run(Scenario sc, long maxNodes, ToIntFunction<DecisionDiagrams> function, String how) {
