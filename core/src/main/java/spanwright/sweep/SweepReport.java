@@ -78,6 +78,9 @@ public final class SweepReport {
             if (f.missing != null) {
                 m.put("missing", f.missing);
             }
+            // competing models (offset, log factor), residuals and local exponents: the plain
+            // exponent alone misreads an offset or a log factor as faster growth
+            m.put("growth", GrowthModels.toJson(GrowthModels.fit(xs, ys)));
             series.put(s[0], m);
         }
         out.put("series", series);

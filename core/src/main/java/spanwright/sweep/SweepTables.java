@@ -207,8 +207,9 @@ public final class SweepTables {
         Map<String, Object> fits = (Map<String, Object>) result.get("fits");
         if (fits != null) {
             Map<String, Object> tail = (Map<String, Object>) fits.get("tail");
-            sb.append("fitted exponents (least squares of log value on log n; sizes ").append(tail.get("sizes"))
-                    .append("):\n");
+            sb.append("fitted growth in n (first: the power law a n^b by least squares of log value on log n, with its"
+                    + " standard error; then competing models with an offset or a log factor, * = the one reported;"
+                    + " sizes ").append(tail.get("sizes")).append("):\n");
             for (Map.Entry<String, Object> e : ((Map<String, Object>) fits.get("series")).entrySet()) {
                 Map<String, Object> f = (Map<String, Object>) e.getValue();
                 sb.append("  ").append(pad(String.valueOf(f.get("what")), 40, false));
@@ -222,10 +223,42 @@ public final class SweepTables {
                         : " (two points: no error estimate)");
                 sb.append("  over n = ").append(full(f.get("fromVariables"))).append(" … ").append(full(f.get("toVariables")))
                         .append('\n');
+                growth(sb, (Map<String, Object>) f.get("growth"));
             }
         }
         sb.append("caution: ").append(result.get("caution")).append(".\n");
         sb.append("convention: ").append(result.get("convention")).append(".\n");
         return sb.toString();
+    }
+
+    /** The competing models of one series, the reported one marked, and the local exponents. */
+    @SuppressWarnings("unchecked")
+    private static void growth(StringBuilder sb, Map<String, Object> g) {
+        if (g == null) {
+            return;
+        }
+        for (Object o : (List<Object>) g.get("models")) {
+            Map<String, Object> md = (Map<String, Object>) o;
+            boolean reported = md.get("name").equals(g.get("reported"));
+            sb.append("    ").append(reported ? "* " : "  ").append(pad(String.valueOf(md.get("formula")), 13, false))
+                    .append("b = ").append(sig(md.get("b"), 4));
+            if (md.get("c") != null) {
+                sb.append(", c = ").append(sig(md.get("c"), 4));
+            }
+            double worst = 0;
+            for (Object r : (List<Object>) md.get("relativeResiduals")) {
+                worst = Math.max(worst, Math.abs(((Number) r).doubleValue()));
+            }
+            sb.append("  (largest relative residual ").append(sig(worst, 2)).append(')').append('\n');
+        }
+        List<Object> local = (List<Object>) g.get("localExponents");
+        if (!local.isEmpty()) {
+            StringBuilder l = new StringBuilder();
+            for (Object v : local) {
+                l.append(l.length() > 0 ? ", " : "").append(sig(v, 3));
+            }
+            sb.append("      local exponents between consecutive sizes: ").append(l).append('\n');
+        }
+        sb.append("      * reported: ").append(g.get("why")).append('\n');
     }
 }
