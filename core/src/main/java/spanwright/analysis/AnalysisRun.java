@@ -75,8 +75,8 @@ public final class AnalysisRun {
         for (long k = cursor; k < end; k++) {
             double code = summary.add(domain.get(k));
             int idx = (int) k;
-            boolean connected = code >= 0;
-            values[idx] = connected ? code : -code - 1.0;
+            boolean connected = InputEvaluator.positive(code);
+            values[idx] = InputEvaluator.value(code);
             flags[idx] = (byte) ((connected ? CONNECTED : 0) | (checked && summary.lastF() ? F_TRUE : 0));
         }
         cursor = end;

@@ -101,7 +101,7 @@ public final class InputEvaluator {
     }
 
     /**
-     * The witness size of input {@code x} in one pass: R ≥ 0 when s and t are connected, −(1 + C)
+     * The witness size of input {@code x} in one pass: R > 0 when s and t are connected, −(C + ε)
      * when they are not (see {@link ElectricalNetwork#evaluate}; decode with {@link #positive} and
      * {@link #value}). Allocation-free.
      */
@@ -126,11 +126,11 @@ public final class InputEvaluator {
 
     /** Whether a code returned by {@link #evaluate} belongs to a positive input. */
     public static boolean positive(double code) {
-        return code >= 0;
+        return ElectricalNetwork.isPositive(code);
     }
 
     /** The witness size (R or C) of a code returned by {@link #evaluate}. */
     public static double value(double code) {
-        return code >= 0 ? code : -code - 1.0;
+        return ElectricalNetwork.value(code);
     }
 }

@@ -490,12 +490,13 @@ public final class Summary {
         /**
          * Evaluates input {@code x} (the next of the range, in input order), checks f(x) against
          * connectivity and records it. Returns the evaluator's code: R ≥ 0 for a positive input,
-         * −(1 + C) for a negative one.
+         * −(C + ε) for a negative one (decode with
+         * {@link InputEvaluator#value}).
          */
         public double add(long x) {
             double code = evaluator.evaluate(x);
-            boolean connected = code >= 0;
-            double v = connected ? code : -code - 1.0;
+            boolean connected = InputEvaluator.positive(code);
+            double v = InputEvaluator.value(code);
             added++;
             if (connected) {
                 positiveCount++;

@@ -76,9 +76,7 @@ public final class ElectricalNetwork {
         this.resistance = weight.clone();
         this.conductance = new double[edgeCount];
         for (int i = 0; i < edgeCount; i++) {
-            if (!(weight[i] > 0) || Double.isInfinite(weight[i])) {
-                throw new IllegalArgumentException("edge " + i + ": weight must be finite and > 0");
-            }
+            checkWeight(i, weight[i]);
             conductance[i] = 1.0 / weight[i];
         }
         parent = new int[vertexCount];
@@ -88,6 +86,19 @@ public final class ElectricalNetwork {
         ground = new double[vertexCount];
         pivot = new double[vertexCount];
         column = new double[vertexCount];
+    }
+
+    /**
+     * Precondition of every weight: finite, &gt; 0 and with a finite conductance 1/w (so no
+     * subnormal). Accuracy (about 1e-13 relative on small networks) is stated for weights in
+     * [{@link spanwright.model.Edge#MIN_WEIGHT}, {@link spanwright.model.Edge#MAX_WEIGHT}], the
+     * range every scenario is held to.
+     */
+    private static void checkWeight(int i, double w) {
+        if (!(w > 0) || Double.isInfinite(w) || Double.isInfinite(1.0 / w)) {
+            throw new IllegalArgumentException("edge " + i + ": weight must be finite, > 0 and have a finite"
+                    + " conductance 1/w, got " + w);
+        }
     }
 
     private static int[] endpoints(Scenario sc, boolean first) {
@@ -157,21 +168,42 @@ public final class ElectricalNetwork {
      * {@link #connected} (or the sign convention of {@link #evaluate}) to tell which.
      */
     public double witnessSize(boolean[] present) {
-        double v = evaluate(present);
-        return v < 0 ? -v - 1 : v;
+        return value(evaluate(present));
     }
 
     /**
-     * Evaluates one input in one pass: returns R ≥ 0 when s and t are connected, and −(1 + C)
-     * when they are not (so the sign tells which side, with no second call). Allocation-free.
+     * The offset of the negative code: a negative input is returned as −(C + OFFSET). OFFSET is
+     * the smallest normal double, far below half an ulp of any capacitance a network with weights
+     * in [{@link spanwright.model.Edge#MIN_WEIGHT}, {@link spanwright.model.Edge#MAX_WEIGHT}] can
+     * have (C ≥ 1e-100/|V| when C ≠ 0), so C + OFFSET rounds to C and {@link #value} gives C back
+     * bit for bit; C = 0 is coded −OFFSET, still strictly negative. (An earlier code, −(1 + C),
+     * lost about 1e-16 absolute: 9e-5 relative at C = 1e-12 and all of C below 1e-16.)
+     */
+    private static final double OFFSET = Double.MIN_NORMAL;
+
+    /**
+     * Evaluates one input in one pass: returns R &gt; 0 when s and t are connected, and
+     * −(C + {@link Double#MIN_NORMAL}) &lt; 0 when they are not (so the sign tells which side,
+     * with no second call). Decode with {@link #isPositive} and {@link #value}, which return
+     * exactly the R or C of the elimination. Allocation-free.
      */
     public double evaluate(boolean[] present) {
         int m = build(present);
         if (m < 0) {
-            return -1.0; // C = 0: no absent edge path joins s's side to t's side
+            return -OFFSET; // C = 0: no absent edge path joins s's side to t's side
         }
         double g = eliminate(m);
-        return positiveCase ? 1.0 / g : -1.0 - g;
+        return positiveCase ? 1.0 / g : -(g + OFFSET);
+    }
+
+    /** Whether a code returned by {@link #evaluate} belongs to a positive input (s ~ t). */
+    public static boolean isPositive(double code) {
+        return code >= 0;
+    }
+
+    /** The witness size (R or C) of a code returned by {@link #evaluate}, exactly. */
+    public static double value(double code) {
+        return code >= 0 ? code : -code - OFFSET;
     }
 
     /** Set by {@link #build}: whether the last input built was positive. */
@@ -362,13 +394,14 @@ public final class ElectricalNetwork {
             return new Witness(true, pot[s], pot, current, energy);
         }
         double[] classPot = new double[vertexCount];
+        double capacitance = 0.0;
         if (m < 0) {
             int cs = find(parent2, rootS);
             for (int i = 0; i < vertexCount; i++) {
                 classPot[i] = find(parent2, i) == cs ? 1.0 : 0.0;
             }
         } else {
-            eliminate(m);
+            capacitance = eliminate(m);
             double[] phi = backSubstitute(m);
             double scale = phi[m - 1];
             for (int i = 0; i < vertexCount; i++) {
@@ -379,15 +412,15 @@ public final class ElectricalNetwork {
         for (int i = 0; i < vertexCount; i++) {
             pot[i] = classPot[find(parent, i)];
         }
-        double total = 0;
         for (int e = 0; e < edgeCount; e++) {
             if (!present[e]) {
                 double d = pot[eu[e]] - pot[ev[e]];
                 energy[e] = d * d * conductance[e];
-                total += energy[e];
             }
         }
-        return new Witness(false, total, pot, current, energy);
+        // the value is the elimination's, as in evaluate (bit for bit); the energies sum to it
+        // up to rounding (Σ energy is the certificate, Thomson/Dirichlet)
+        return new Witness(false, capacitance, pot, current, energy);
     }
 
     /**
@@ -399,9 +432,7 @@ public final class ElectricalNetwork {
             throw new IllegalArgumentException("expected " + edgeCount + " weights, got " + weight.length);
         }
         for (int i = 0; i < edgeCount; i++) {
-            if (!(weight[i] > 0) || Double.isInfinite(weight[i])) {
-                throw new IllegalArgumentException("edge " + i + ": weight must be finite and > 0");
-            }
+            checkWeight(i, weight[i]);
             resistance[i] = weight[i];
             conductance[i] = 1.0 / weight[i];
         }

@@ -7,7 +7,9 @@ package spanwright.electric;
  * principle), {@link #potential} the vertex potentials with φ(t) = 0 and φ(s) = R (NaN off s's
  * component), and {@link #value} = R. For a negative input: {@link #potential} is 1 on s's side,
  * 0 on t's, constant on components of G(x); {@link #energy} is (p_u − p_v)²/w_e on each absent
- * edge; {@link #value} = C = Σ energy. Arrays are owned by the record; do not modify.
+ * edge; {@link #value} = C, the
+ * elimination's value (bit for bit the one {@link ElectricalNetwork#evaluate} gives), which Σ energy
+ * matches up to rounding. Arrays are owned by the record; do not modify.
  */
 public final class Witness {
     public final boolean connected;

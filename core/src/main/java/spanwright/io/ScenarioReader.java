@@ -221,10 +221,10 @@ public final class ScenarioReader {
                     throw new ScenarioException("weight", p + ".weight", "weight must be a number, got " + show(wt));
                 }
                 w = ((Number) wt).doubleValue();
-                if (!(w > 0) || Double.isInfinite(w)) {
-                    throw new ScenarioException("weight", p + ".weight", "weight must be a finite number > 0, got "
-                            + (Double.isInfinite(w) ? (w > 0 ? "" : "-") + "infinity (a number too large)"
-                                    : Json.write(wt)));
+                String problem = Edge.weightProblem(w);
+                if (problem != null) {
+                    throw new ScenarioException("weight", p + ".weight", "edge \"" + id + "\": "
+                            + problem.replace(Double.toString(w), Json.write(wt)));
                 }
             } else if (wt == Json.NULL) {
                 throw new ScenarioException("weight", p + ".weight", "weight must be a finite number > 0, got null");

@@ -396,10 +396,11 @@ public final class WeightOptimizer {
         return out.toArray(new double[0][]);
     }
 
+    /** Weights e^u, held inside the accepted range [Edge.MIN_WEIGHT, Edge.MAX_WEIGHT]. */
     private static double[] expand(double[] u, int[] group) {
         double[] w = new double[group.length];
         for (int k = 0; k < group.length; k++) {
-            w[k] = Math.exp(u[group[k]]);
+            w[k] = Math.min(Edge.MAX_WEIGHT, Math.max(Edge.MIN_WEIGHT, Math.exp(u[group[k]])));
         }
         return w;
     }
@@ -412,10 +413,19 @@ public final class WeightOptimizer {
         boolean balanced = false;
         if (!anyLocked && ev.worstPositive >= 0 && ev.worstNegative >= 0 && ev.maxR > 0 && ev.maxC > 0) {
             double lambda = Math.sqrt(ev.maxC / ev.maxR);
-            for (int k = 0; k < w.length; k++) {
-                w[k] *= lambda;
+            double lo = 0;
+            double hi = Double.POSITIVE_INFINITY;
+            for (double x : w) {
+                lo = Math.max(lo, Edge.MIN_WEIGHT / x);
+                hi = Math.min(hi, Edge.MAX_WEIGHT / x);
             }
-            balanced = true;
+            // balance only as far as the accepted weight range allows (always, unless the
+            // weights already span nearly the whole range)
+            balanced = lambda >= lo && lambda <= hi;
+            lambda = Math.max(lo, Math.min(hi, lambda));
+            for (int k = 0; k < w.length; k++) {
+                w[k] = Math.max(Edge.MIN_WEIGHT, Math.min(Edge.MAX_WEIGHT, w[k] * lambda));
+            }
         }
         double[] all = new double[scenario.edges().size()];
         for (int i = 0; i < all.length; i++) {

@@ -84,7 +84,7 @@ final class WorstCaseEvaluator {
             }
         }
         for (int i = 0; i < negatives.length; i++) {
-            double c = -inputs.evaluate(negatives[i]) - 1.0;
+            double c = InputEvaluator.value(inputs.evaluate(negatives[i]));
             negativeValue[i] = c;
             if (worstNegative < 0 || c > maxC) {
                 maxC = c;

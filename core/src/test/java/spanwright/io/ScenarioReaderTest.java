@@ -382,11 +382,22 @@ class ScenarioReaderTest {
         ScenarioException negative = assertRejected(EXAMPLE.replace("\"weight\": 1.0", "\"weight\": -1e400"),
             "weight", "$.graph.edges[0].weight", "infinit");
         assertFalse(negative.getMessage().contains("null"), negative.getMessage());
-        // tiny and large finite weights are fine
-        assertEquals(1e-300, ScenarioReader.read(EXAMPLE.replace("\"weight\": 1.0", "\"weight\": 1e-300"))
+        // the ends of the accepted range are fine (Edge.MIN_WEIGHT, Edge.MAX_WEIGHT)
+        assertEquals(1e-100, ScenarioReader.read(EXAMPLE.replace("\"weight\": 1.0", "\"weight\": 1e-100"))
             .edges().get(0).weight());
-        assertEquals(1e300, ScenarioReader.read(EXAMPLE.replace("\"weight\": 1.0", "\"weight\": 1e300"))
+        assertEquals(1e100, ScenarioReader.read(EXAMPLE.replace("\"weight\": 1.0", "\"weight\": 1e100"))
             .edges().get(0).weight());
+    }
+
+    @Test
+    void rejectsWeightsOutsideTheAcceptedRange() {
+        // Project rule (Edge.MIN_WEIGHT = 1e-100, MAX_WEIGHT = 1e100): a subnormal weight has an
+        // infinite conductance (IEEE 754: 1/5e-324 overflows); 1e-101 and 1e101 are just outside.
+        for (String w : new String[] {"5e-324", "1e-300", "1e-101", "1e101", "1e300"}) {
+            ScenarioException e = assertRejected(EXAMPLE.replace("\"weight\": 1.0", "\"weight\": " + w), "weight",
+                "$.graph.edges[0].weight", "outside the accepted range [1e-100, 1e100]", "scale all weights");
+            assertTrue(e.getMessage().contains("edge \""), "names the edge: " + e.getMessage());
+        }
     }
 
     // ------------------------------------------------------------------ promise

@@ -95,7 +95,8 @@ class ScenarioWriterTest {
             for (int i = 0; i < ne; i++) {
                 int x = rnd.nextInt(n + 1);
                 Condition c = x == n ? Condition.ALWAYS : Condition.literal(x, vars.get(x), rnd.nextBoolean());
-                double w = Math.abs(awkward(rnd)) + Double.MIN_VALUE;
+                // weights: awkward digits at both ends of the accepted range and inside it
+                double w = Math.min(Edge.MAX_WEIGHT, Math.abs(awkward(rnd)) * 1e-200 + Edge.MIN_WEIGHT);
                 es.add(new Edge("e" + i, rnd.nextInt(nv), rnd.nextInt(nv), c, w));
             }
             Scenario sc = new Scenario("t" + trial, "", vars, null, null, Promise.NONE, vs, 0, nv - 1, es, null);
