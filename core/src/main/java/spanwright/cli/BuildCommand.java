@@ -1,11 +1,8 @@
 package spanwright.cli;
 
-import java.io.IOException;
 import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -108,6 +105,7 @@ final class BuildCommand {
             default:
                 throw new Main.UsageException("build: unknown kind \"" + what + "\" (formula, tree, host, compose)");
         }
+        OutputFiles.refuseClashes("build " + what, new ArrayList<>(files.values()), Arrays.asList(options.get("-o")));
         Built built;
         try {
             built = BuildRequest.run(request);
@@ -121,11 +119,7 @@ final class BuildCommand {
         if (file == null) {
             out.print(text);
         } else {
-            try {
-                Files.writeString(Path.of(file), text, StandardCharsets.UTF_8);
-            } catch (IOException e) {
-                throw new Main.UsageException("build: cannot write " + file + ": " + e.getMessage());
-            }
+            OutputFiles.write("build", file, text);
             err.println("spanwright: wrote " + file);
         }
         StringBuilder sb = new StringBuilder("spanwright: built");

@@ -22,7 +22,9 @@ import spanwright.model.Scenario;
 
 /**
  * The command-line tool: {@code java -jar core/target/spanwright.jar <command> …}.
- * Exit status: 0 success, 1 the reduction is wrong on some input, 2 invalid scenario or usage.
+ * Exit status: 0 success, 1 the reduction is wrong on some input, 2 invalid scenario, usage or a
+ * file that cannot be read or written, 3 internal error (a bug or the machine's limits: any other
+ * exception or Error, on any thread, ends the command with one line on stderr and no stack trace).
  */
 public final class Main {
     /** Classpath location of the built-in default scenario (a copy of scenarios/default.json). */
@@ -31,6 +33,7 @@ public final class Main {
     static final int OK = 0;
     static final int WRONG_REDUCTION = 1;
     static final int INVALID = 2;
+    static final int INTERNAL = 3;
 
     private Main() {}
 
@@ -73,7 +76,18 @@ public final class Main {
         } catch (ScenarioException e) {
             err.println("spanwright: invalid scenario: " + e.describe() + " [" + e.code() + "]");
             return INVALID;
+        } catch (Throwable e) { // deliberately everything else: no stack trace reaches a user
+            err.println("spanwright: " + internal(e));
+            return INTERNAL;
         }
+    }
+
+    /** One line for an unexpected failure: what it was and what to do. */
+    static String internal(Throwable e) {
+        String what = e instanceof StackOverflowError ? "the input is nested too deeply for this program (stack overflow)"
+                : e instanceof OutOfMemoryError ? "out of memory (try a smaller input, or more memory with java -Xmx…)"
+                : String.valueOf(e).replace('\n', ' ');
+        return "internal error: " + what + "; please report it with the command and its input files";
     }
 
     static String usage() {
@@ -100,7 +114,8 @@ public final class Main {
                 + SweepCommand.usage()
                 + SimulateCommand.usage()
                 + "\n"
-                + "exit status: 0 ok, 1 reduction wrong on some input, 2 invalid scenario or usage\n";
+                + "exit status: 0 ok, 1 reduction wrong on some input, 2 invalid scenario or usage, or a file\n"
+                + "  that cannot be read or written (an output may not name an input), 3 internal error\n";
     }
 
     /** Reads a scenario file, or the built-in default when {@code file} is null. */

@@ -53,6 +53,7 @@ final class MergeCommand {
         if (output == null && !json) {
             throw new Main.UsageException("merge: write the result with -o OUT.json (or print it with --json)");
         }
+        OutputFiles.refuseClashes("merge", files, java.util.Arrays.asList(output, csv, latex));
         long start = System.nanoTime();
         List<Object> parts = new ArrayList<>();
         for (String f : files) {

@@ -1,10 +1,6 @@
 package spanwright.cli;
 
-import java.io.IOException;
 import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -65,16 +61,13 @@ final class OptimizeCommand {
                     file = a;
             }
         }
+        OutputFiles.refuseClashes("optimize", java.util.Arrays.asList(file), java.util.Arrays.asList(output));
         String text = Main.readScenarioText(file);
         Scenario sc = ScenarioReader.read(text);
         OptimizerOptions opt = JsonFacade.optimizerOptions(Json.write(options));
         OptimizationResult r = WeightOptimizer.optimize(sc, opt, null);
         if (output != null) {
-            try {
-                Files.writeString(Path.of(output), ResultJson.withWeights(text, r.scenario), StandardCharsets.UTF_8);
-            } catch (IOException e) {
-                throw new Main.UsageException("cannot write " + output + ": " + e.getMessage());
-            }
+            OutputFiles.write("optimize", output, ResultJson.withWeights(text, r.scenario));
         }
         if (json) {
             out.println(Json.writePretty(ResultJson.optimization(r)).trim());

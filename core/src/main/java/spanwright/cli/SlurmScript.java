@@ -3,9 +3,9 @@ package spanwright.cli;
 import java.io.IOException;
 import java.io.PrintStream;
 import java.net.URISyntaxException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import spanwright.io.AtomicFile;
 import java.nio.file.attribute.PosixFilePermissions;
 import java.util.ArrayList;
 import java.util.List;
@@ -138,7 +138,7 @@ final class SlurmScript {
     }
 
     private static void writeScript(Path p, String text) throws IOException {
-        Files.writeString(p, text, StandardCharsets.UTF_8);
+        AtomicFile.write(p, text);
         try {
             Files.setPosixFilePermissions(p, PosixFilePermissions.fromString("rwxr-xr-x"));
         } catch (UnsupportedOperationException e) {

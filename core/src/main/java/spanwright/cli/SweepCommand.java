@@ -1,12 +1,9 @@
 package spanwright.cli;
 
 import spanwright.io.NumberText;
-import java.io.IOException;
 import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -109,6 +106,7 @@ final class SweepCommand {
     static Args parse(List<String> args) {
         Args a = new Args();
         String familyArg = null;
+        String ofFile = null;
         String sizes = null;
         Map<String, Object> familyOptions = new LinkedHashMap<>();
         for (int i = 0; i < args.size(); i++) {
@@ -124,6 +122,7 @@ final class SweepCommand {
                 case "--root": familyOptions.put("root", value(args, ++i, x)); a.repeat.add(x); a.repeat.add(args.get(i)); break;
                 case "--of": {
                     String f = value(args, ++i, x);
+                    ofFile = f;
                     familyOptions.put("scenario", Json.parse(readFile(f)));
                     a.repeat.add(x);
                     a.repeat.add(Path.of(f).toAbsolutePath().toString());
@@ -207,8 +206,11 @@ final class SweepCommand {
             throw new Main.UsageException("sweep: name a FAMILY (" + String.join(", ", BuiltInFamilies.NAMES)
                     + ") or a family file");
         }
+        boolean familyFile = familyArg.endsWith(".json") || Files.isRegularFile(Path.of(familyArg));
+        OutputFiles.refuseClashes("sweep", java.util.Arrays.asList(familyFile ? familyArg : null, ofFile),
+                java.util.Arrays.asList(a.output, a.csv, a.latex));
         Map<String, Object> spec = new LinkedHashMap<>();
-        if (familyArg.endsWith(".json") || Files.isRegularFile(Path.of(familyArg))) {
+        if (familyFile) {
             Object doc = Json.parse(readFile(familyArg));
             if (!FamilyTemplate.isFamilyDocument(doc)) {
                 throw new Main.UsageException("sweep: " + familyArg + " is not a family file (\"format\": \""
@@ -285,20 +287,9 @@ final class SweepCommand {
         }
     }
 
-    /** Writes atomically: a temporary file next to the target, then a rename. */
+    /** Writes whole or not at all ({@link OutputFiles#write}). */
     static void write(String file, String text) {
-        Path p = Path.of(file).toAbsolutePath();
-        try {
-            Path dir = p.getParent();
-            if (dir != null) {
-                Files.createDirectories(dir);
-            }
-            Path tmp = Files.createTempFile(dir, p.getFileName().toString(), ".tmp");
-            Files.writeString(tmp, text, StandardCharsets.UTF_8);
-            Files.move(tmp, p, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-        } catch (IOException e) {
-            throw new Main.UsageException("cannot write " + file + ": " + e.getMessage());
-        }
+        OutputFiles.write("sweep", file, text);
     }
 
     /** The finished sizes of an earlier run of the same sweep in {@code a.output}. */
@@ -354,6 +345,10 @@ final class SweepCommand {
         final AtomicInteger finished = new AtomicInteger();
         final long started = System.nanoTime();
         volatile boolean wrong;
+        /** The first failure that ends the whole sweep (an Error, a bug, a failed write); guarded by lock. */
+        Throwable fatal;
+        /** Set when the sweep has ended (or failed): no worker writes the output after that; guarded by lock. */
+        boolean stopped;
 
         Runner(Args a, boolean part, Map<Integer, Map<String, Object>> kept, PrintStream err) {
             this.a = a;
@@ -401,32 +396,75 @@ final class SweepCommand {
             CountDownLatch latch = new CountDownLatch(todo.size());
             for (int s : todo) {
                 int index = a.sizes.indexOf(s);
-                pool.execute(() -> {
+                pool.execute(guarded(latch, () -> {
                     try {
                         size(pool, index, s, latch);
-                    } catch (RuntimeException e) {
-                        failed(s, e, latch);
+                    } catch (ScenarioException e) {
+                        failed(s, e, latch); // bad input for this size: a row that says so; the others go on
                     }
-                });
+                }));
             }
             try {
                 latch.await();
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
+                abort(e, latch);
+            }
+            Throwable f;
+            synchronized (lock) {
+                stopped = true; // a worker still running can no longer write the output
+                f = fatal;
             }
             pool.shutdownNow();
+            if (f instanceof RuntimeException) {
+                throw (RuntimeException) f; // a failed write is exit 2, anything else exit 3 (Main)
+            }
+            if (f instanceof Error) {
+                throw (Error) f;
+            }
+            if (f != null) {
+                throw new IllegalStateException("sweep interrupted", f);
+            }
         }
 
-        void failed(int size, RuntimeException e, CountDownLatch latch) {
+        /**
+         * A pool task that cannot die silently: any Throwable (an Error such as a stack overflow or
+         * out of memory, a bug, a failed write of the output) ends the whole sweep through
+         * {@link #abort}, so the main thread never waits for a size that will not come.
+         */
+        Runnable guarded(CountDownLatch latch, Runnable body) {
+            return () -> {
+                try {
+                    body.run();
+                } catch (Throwable e) { // deliberately everything: see above
+                    abort(e, latch);
+                }
+            };
+        }
+
+        /** Records the first fatal failure, stops all writes and releases the main thread. */
+        void abort(Throwable e, CountDownLatch latch) {
+            synchronized (lock) {
+                if (fatal == null) {
+                    fatal = e;
+                }
+                stopped = true;
+            }
+            while (latch.getCount() > 0) {
+                latch.countDown();
+            }
+        }
+
+        void failed(int size, ScenarioException e, CountDownLatch latch) {
             Map<String, Object> row = new LinkedHashMap<>();
             row.put("size", size);
             row.put("status", "error");
             Map<String, Object> er = new LinkedHashMap<>();
-            er.put("code", "internal");
-            er.put("message", "internal error: " + e);
-            er.put("path", "$");
+            er.put("code", e.code());
+            er.put("message", e.getMessage());
+            er.put("path", e.path());
             row.put("error", er);
-            log("size " + size + ": internal error: " + e);
+            log("size " + size + ": " + e.describe() + " [" + e.code() + "]");
             complete(size, row, latch);
         }
 
@@ -469,13 +507,8 @@ final class SweepCommand {
                 long f = from + SweepDocument.split(units, chunks, c);
                 long t = from + SweepDocument.split(units, chunks, c + 1);
                 int ci = c;
-                pool.execute(() -> {
-                    try {
-                        parts[ci] = s.evaluate(f, t);
-                    } catch (RuntimeException e) {
-                        parts[ci] = null;
-                        log("size " + size + ": internal error in inputs " + f + " … " + t + ": " + e);
-                    }
+                pool.execute(guarded(latch, () -> {
+                    parts[ci] = s.evaluate(f, t);
                     long e2 = evaluated.addAndGet(t - f);
                     synchronized (lastPrint) {
                         if (System.nanoTime() - lastPrint[0] > 5_000_000_000L && e2 < units) {
@@ -486,16 +519,12 @@ final class SweepCommand {
                     if (left.decrementAndGet() == 0) {
                         List<Summary> l = new ArrayList<>();
                         for (Summary p : parts) {
-                            if (p == null) {
-                                failed(size, new IllegalStateException("an input range failed"), latch);
-                                return;
-                            }
                             l.add(p);
                         }
                         evalTiming(s, te, units, chunks);
                         finish(s, Summary.merge(l), latch);
                     }
-                });
+                }));
             }
         }
 
@@ -539,6 +568,9 @@ final class SweepCommand {
 
         void complete(int size, Map<String, Object> entry, CountDownLatch latch) {
             synchronized (lock) {
+                if (stopped) {
+                    return; // the sweep has failed elsewhere: leave the output as it is
+                }
                 done.put(size, entry);
                 finished.incrementAndGet();
                 if (a.output != null) {
