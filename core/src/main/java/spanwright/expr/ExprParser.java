@@ -25,13 +25,28 @@ import java.util.List;
  * allowed: every function needs at least one argument). A name followed by "(" is a function call;
  * otherwise it is a variable and must be one of the declared variables. Errors report the 1-based
  * column and what was expected. Cost O(length).
+ *
+ * <p><b>Limits</b> (so that no walk over an expression, here or in any caller, can overflow the
+ * stack, in the JVM or in the page's JavaScript): at most {@value #MAX_NESTING} levels of
+ * nesting — parentheses, {@code !}, the right side of {@code ->}, function calls — and a tree at
+ * most {@value #MAX_DEPTH} deep. Long chains of one associative operator ({@code |}, {@code &},
+ * {@code ^}, and {@code any}, {@code all}, {@code parity}) with more than {@value #FLAT_CHAIN}
+ * operands are built as balanced trees, so an OR of any length is only about log₂(length) deep;
+ * shorter chains stay left-nested as written.
  */
 public final class ExprParser {
+    /** Most levels of nesting (parentheses, !, ->, function calls) an expression may have. */
+    public static final int MAX_NESTING = 200;
+    /** Most depth the expression tree may have (checked after parsing, without recursion). */
+    public static final int MAX_DEPTH = 1000;
+    /** Chains of an associative operator up to this many operands stay left-nested. */
+    static final int FLAT_CHAIN = 8;
     private final String text;
     private final List<String> variables;
     /** When true, undeclared names are collected into {@link #variables} instead of rejected. */
     private final boolean declaring;
     private int pos;
+    private int nesting;
 
     private ExprParser(String text, List<String> variables, boolean declaring) {
         this.text = text;
@@ -81,7 +96,52 @@ public final class ExprParser {
         if (pos < text.length()) {
             throw expected("an operator or the end of the expression");
         }
+        if (depth(e) > MAX_DEPTH) {
+            throw new ExprException(1, "the expression is more than " + MAX_DEPTH + " levels deep; write long"
+                    + " lists with any(…), all(…) or parity(…), or split it");
+        }
         return e;
+    }
+
+    /** One more level of nesting at the current position; refused beyond {@link #MAX_NESTING}. */
+    private void enter() {
+        if (++nesting > MAX_NESTING) {
+            throw new ExprException(pos + 1, "the expression nests more than " + MAX_NESTING + " levels deep"
+                    + " (parentheses, !, -> and function calls); write it flatter, e.g. long lists as any(…)"
+                    + " or all(…), and !!x as x");
+        }
+    }
+
+    /** Depth of the tree (a leaf is 1), by an explicit stack: O(size), no recursion. */
+    static int depth(Expr root) {
+        java.util.ArrayDeque<Expr> nodes = new java.util.ArrayDeque<>();
+        java.util.ArrayDeque<Integer> depths = new java.util.ArrayDeque<>();
+        nodes.push(root);
+        depths.push(1);
+        int max = 0;
+        while (!nodes.isEmpty()) {
+            Expr e = nodes.pop();
+            int d = depths.pop();
+            max = Math.max(max, d);
+            if (d > MAX_DEPTH) {
+                return d;
+            }
+            if (e instanceof Expr.Not) {
+                nodes.push(((Expr.Not) e).operand);
+                depths.push(d + 1);
+            } else if (e instanceof Expr.Binary) {
+                nodes.push(((Expr.Binary) e).left);
+                depths.push(d + 1);
+                nodes.push(((Expr.Binary) e).right);
+                depths.push(d + 1);
+            } else if (e instanceof Expr.Counting) {
+                for (Expr a : ((Expr.Counting) e).args) {
+                    nodes.push(a);
+                    depths.push(d + 1);
+                }
+            }
+        }
+        return max;
     }
 
     /** True if {@code s} is a valid variable name in this language. */
@@ -136,45 +196,59 @@ public final class ExprParser {
     private Expr implies() {
         Expr e = or();
         if (accept("->")) {
-            return new Expr.Binary(Expr.Op.IMPLIES, e, implies());
+            enter();
+            Expr r = implies();
+            nesting--;
+            return new Expr.Binary(Expr.Op.IMPLIES, e, r);
         }
         return e;
     }
 
     private Expr or() {
-        Expr e = xor();
+        List<Expr> chain = new ArrayList<>();
+        chain.add(xor());
         while (true) {
             skipWs();
             if (pos < text.length() && text.charAt(pos) == '|') {
                 pos++;
-                e = new Expr.Binary(Expr.Op.OR, e, xor());
+                chain.add(xor());
             } else {
-                return e;
+                return fold(Expr.Op.OR, chain);
             }
         }
     }
 
     private Expr xor() {
-        Expr e = and();
+        List<Expr> chain = new ArrayList<>();
+        chain.add(and());
         while (accept("^")) {
-            e = new Expr.Binary(Expr.Op.XOR, e, and());
+            chain.add(and());
         }
-        return e;
+        return fold(Expr.Op.XOR, chain);
     }
 
     private Expr and() {
-        Expr e = unary();
+        List<Expr> chain = new ArrayList<>();
+        chain.add(unary());
         while (accept("&")) {
-            e = new Expr.Binary(Expr.Op.AND, e, unary());
+            chain.add(unary());
         }
-        return e;
+        return fold(Expr.Op.AND, chain);
     }
 
     private Expr unary() {
-        if (accept("!")) {
-            return new Expr.Not(unary());
+        int bangs = 0;
+        int start = nesting;
+        while (accept("!")) {
+            enter();
+            bangs++;
         }
-        return atom();
+        Expr e = atom();
+        for (int i = 0; i < bangs; i++) {
+            e = new Expr.Not(e);
+        }
+        nesting = start;
+        return e;
     }
 
     private Expr atom() {
@@ -184,11 +258,13 @@ public final class ExprParser {
         }
         char c = text.charAt(pos);
         if (c == '(') {
+            enter(); // the error's column is this parenthesis
             pos++;
             Expr e = iff();
             if (!accept(")")) {
                 throw expected("')'");
             }
+            nesting--;
             return e;
         }
         if (c == '0' || c == '1') {
@@ -232,6 +308,13 @@ public final class ExprParser {
 
     private Expr call(String name, int nameStart) {
         pos++; // '('
+        enter();
+        Expr e = callBody(name, nameStart);
+        nesting--;
+        return e;
+    }
+
+    private Expr callBody(String name, int nameStart) {
         Expr.Count count = null;
         switch (name) {
             case "thr":
@@ -256,7 +339,7 @@ public final class ExprParser {
         if (count != null) {
             skipWs();
             int start = pos;
-            while (pos < text.length() && Character.isDigit(text.charAt(pos))) {
+            while (pos < text.length() && text.charAt(pos) >= '0' && text.charAt(pos) <= '9') { // ASCII only
                 pos++;
             }
             if (start == pos || pos - start > 6) {
@@ -290,9 +373,21 @@ public final class ExprParser {
         }
     }
 
+    /**
+     * {@code args[0] op args[1] op …}: left-nested as written for up to {@link #FLAT_CHAIN}
+     * operands, balanced beyond (op is associative, so the value is the same; depth ⌈log₂ n⌉).
+     */
     private static Expr fold(Expr.Op op, List<Expr> args) {
-        Expr e = args.get(0);
-        for (int i = 1; i < args.size(); i++) {
+        return fold(op, args, 0, args.size());
+    }
+
+    private static Expr fold(Expr.Op op, List<Expr> args, int from, int to) {
+        if (to - from > FLAT_CHAIN) {
+            int mid = (from + to) >>> 1;
+            return new Expr.Binary(op, fold(op, args, from, mid), fold(op, args, mid, to));
+        }
+        Expr e = args.get(from);
+        for (int i = from + 1; i < to; i++) {
             e = new Expr.Binary(op, e, args.get(i));
         }
         return e;
