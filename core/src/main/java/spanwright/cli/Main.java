@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -131,7 +130,9 @@ public final class Main {
             }
         }
         try {
-            return Files.readString(Path.of(file), StandardCharsets.UTF_8);
+            return spanwright.io.TextFile.readUtf8(Path.of(file));
+        } catch (spanwright.io.TextFile.NotUtf8Exception e) {
+            throw new UsageException(e.getMessage());
         } catch (NoSuchFileException e) {
             throw new UsageException("no such file: " + file);
         } catch (IOException e) {

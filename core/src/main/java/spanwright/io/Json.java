@@ -211,7 +211,7 @@ public final class Json {
                         }
                         int code = 0;
                         for (int i = 0; i < 4; i++) {
-                            int d = Character.digit(text.charAt(pos++), 16);
+                            int d = hexDigit(text.charAt(pos++));
                             if (d < 0) {
                                 throw error("bad hex digit in \\u escape");
                             }
@@ -232,13 +232,23 @@ public final class Json {
         }
     }
 
+    /** JSON digits are ASCII 0–9 only (RFC 8259 §6); Character.isDigit would take any script's. */
+    private static boolean isAsciiDigit(char c) {
+        return c >= '0' && c <= '9';
+    }
+
+    /** Value of an ASCII hex digit, or −1 (RFC 8259 §7: \\u is followed by four HEXDIG). */
+    private static int hexDigit(char c) {
+        return c >= '0' && c <= '9' ? c - '0' : c >= 'a' && c <= 'f' ? c - 'a' + 10 : c >= 'A' && c <= 'F' ? c - 'A' + 10 : -1;
+    }
+
     private Double number() {
         int start = pos;
         if (text.charAt(pos) == '-') {
             pos++;
         }
         int digits = pos;
-        while (pos < text.length() && Character.isDigit(text.charAt(pos))) {
+        while (pos < text.length() && isAsciiDigit(text.charAt(pos))) {
             pos++;
         }
         if (pos == digits) {
@@ -251,7 +261,7 @@ public final class Json {
         if (pos < text.length() && text.charAt(pos) == '.') {
             pos++;
             int f = pos;
-            while (pos < text.length() && Character.isDigit(text.charAt(pos))) {
+            while (pos < text.length() && isAsciiDigit(text.charAt(pos))) {
                 pos++;
             }
             if (pos == f) {
@@ -264,7 +274,7 @@ public final class Json {
                 pos++;
             }
             int f = pos;
-            while (pos < text.length() && Character.isDigit(text.charAt(pos))) {
+            while (pos < text.length() && isAsciiDigit(text.charAt(pos))) {
                 pos++;
             }
             if (pos == f) {

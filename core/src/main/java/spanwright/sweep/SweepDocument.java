@@ -163,7 +163,8 @@ public final class SweepDocument {
         }
         long v = 0;
         for (int i = 0; i < s.length(); i++) {
-            int d = Character.digit(s.charAt(i), 16);
+            char c = s.charAt(i);
+            int d = c >= '0' && c <= '9' ? c - '0' : c >= 'a' && c <= 'f' ? c - 'a' + 10 : c >= 'A' && c <= 'F' ? c - 'A' + 10 : -1;
             if (d < 0) {
                 throw new ScenarioException("part", path, "expected a hexadecimal fingerprint");
             }

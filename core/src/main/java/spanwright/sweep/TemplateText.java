@@ -143,6 +143,14 @@ public final class TemplateText {
         private final Map<String, Long> vars;
         private final String path;
         private int pos;
+        /** Levels of '(', unary '-' and '^' open now; at most 200 (no stack overflow on any text). */
+        private int nesting;
+
+        private void enter() {
+            if (++nesting > 200) {
+                throw error("nested more than 200 levels deep");
+            }
+        }
 
         Parser(String s, Map<String, Long> vars, String path) {
             this.s = s;
@@ -410,13 +418,21 @@ public final class TemplateText {
             skip();
             if (pos < s.length() && s.charAt(pos) == '^') {
                 pos++;
+                enter();
                 long e = power();
+                nesting--;
                 if (e < 0) {
                     throw error("negative exponent");
                 }
+                if (base == 0 || base == 1) {
+                    return e == 0 ? 1 : base; // no loop of e steps (e may be huge)
+                }
+                if (base == -1) {
+                    return e % 2 == 0 ? 1 : -1;
+                }
                 long r = 1;
                 for (long i = 0; i < e; i++) {
-                    r = Math.multiplyExact(r, base);
+                    r = Math.multiplyExact(r, base); // |base| ≥ 2 overflows within 63 steps
                 }
                 return r;
             }
@@ -427,7 +443,10 @@ public final class TemplateText {
             skip();
             if (pos < s.length() && s.charAt(pos) == '-') {
                 pos++;
-                return Math.negateExact(unary());
+                enter();
+                long v = Math.negateExact(unary());
+                nesting--;
+                return v;
             }
             return atom();
         }
@@ -439,9 +458,11 @@ public final class TemplateText {
             }
             char c = s.charAt(pos);
             if (c == '(') {
+                enter();
                 pos++;
                 long v = sum();
                 expect(')');
+                nesting--;
                 return v;
             }
             if (c >= '0' && c <= '9') {

@@ -130,4 +130,26 @@ class ReliabilityTest {
         assertFalse(Main.internal(new IllegalStateException("a\nb")).contains("\n"));
         assertTrue(Main.usage().contains("3 internal error"));
     }
+
+    @Test
+    void aFileThatIsNotUtf8IsNamedWithTheByte() throws IOException {
+        // derived: {"title": "caf is 14 bytes, so the Latin-1 é (0xE9, not followed by two continuation bytes) is at byte 14
+        byte[] latin1 = "{\"title\": \"caf\u00e9\"}".getBytes(StandardCharsets.ISO_8859_1);
+        Path p = dir.resolve("latin1.json");
+        Files.write(p, latin1);
+        MainTest.Run r = MainTest.run("analyze", p.toString());
+        assertEquals(2, r.status, r.err);
+        assertTrue(r.err.contains("is not UTF-8 text at byte 14"), r.err);
+        assertOneLine(r);
+    }
+
+    @Test
+    void aUnicodeDigitInANumberIsAJsonSyntaxError() throws IOException {
+        // U+0663 ARABIC-INDIC DIGIT THREE is a digit to Character.isDigit, not to JSON (RFC 8259 §6)
+        Path p = write("digit.json", SCENARIO.replace("\"weight\": 2", "\"weight\": 1\u0663"));
+        MainTest.Run r = MainTest.run("analyze", p.toString());
+        assertEquals(2, r.status, r.err);
+        assertTrue(r.err.contains("[json-syntax]"), r.err);
+        assertOneLine(r);
+    }
 }
