@@ -478,6 +478,8 @@ public final class JsonFacade {
             // validate first: a link to a broken scenario helps nobody
             ScenarioReader.read(scenarioJson);
             return ok("fragment", ShareCodec.encode(scenarioJson));
+        } catch (IllegalArgumentException e) { // too large for a link, or a lone surrogate
+            return error("share-link", "$", e.getMessage() + " Save the scenario as a file instead.");
         } catch (RuntimeException e) {
             return fail(e);
         }

@@ -292,8 +292,18 @@ public final class ScenarioReader {
             return ExprParser.parse(text, variables);
         } catch (ExprException e) {
             throw new ScenarioException("expression", path, "column " + e.column() + ": " + e.getMessage()
-                    + " in \"" + text + "\"");
+                    + " in \"" + excerpt(text, e.column() - 1) + "\"");
         }
+    }
+
+    /** The text, or for a long one about 60 characters around {@code at} with "…" for the rest. */
+    static String excerpt(String text, int at) {
+        if (text.length() <= 120) {
+            return text;
+        }
+        int from = Math.max(0, Math.min(at - 30, text.length() - 60));
+        int to = Math.min(text.length(), from + 60);
+        return (from > 0 ? "…" : "") + text.substring(from, to) + (to < text.length() ? "…" : "");
     }
 
     /** Parses an edge condition: {@code a}, {@code !a} or {@code 1}. */
