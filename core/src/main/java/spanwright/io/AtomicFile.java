@@ -98,20 +98,8 @@ public final class AtomicFile {
             return out;
         } catch (CharacterCodingException e) {
             throw new IOException("the text cannot be written as UTF-8 (it holds a lone surrogate, half of a"
-                    + " character pair, near character " + firstLoneSurrogate(text) + ")");
+                    + " character pair, near character " + Json.firstLoneSurrogate(text) + ")");
         }
-    }
-
-    private static int firstLoneSurrogate(String s) {
-        for (int i = 0; i < s.length(); i++) {
-            char c = s.charAt(i);
-            if (Character.isHighSurrogate(c) && i + 1 < s.length() && Character.isLowSurrogate(s.charAt(i + 1))) {
-                i++;
-            } else if (Character.isSurrogate(c)) {
-                return i;
-            }
-        }
-        return -1;
     }
 
     private static void copyPermissions(Path from, Path to) {

@@ -232,6 +232,22 @@ public final class Json {
         }
     }
 
+    /**
+     * Index of the first lone surrogate (half of a character pair, which UTF-8 cannot carry) in
+     * {@code s}, or −1. O(length). (Here because it is text handling the page may use too.)
+     */
+    public static int firstLoneSurrogate(String s) {
+        for (int i = 0; i < s.length(); i++) {
+            char c = s.charAt(i);
+            if (Character.isHighSurrogate(c) && i + 1 < s.length() && Character.isLowSurrogate(s.charAt(i + 1))) {
+                i++;
+            } else if (Character.isSurrogate(c)) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
     /** JSON digits are ASCII 0–9 only (RFC 8259 §6); Character.isDigit would take any script's. */
     private static boolean isAsciiDigit(char c) {
         return c >= '0' && c <= '9';

@@ -53,15 +53,11 @@ public final class ShareCodec {
         if (text == null) {
             throw new IllegalArgumentException("No scenario text to encode.");
         }
-        for (int i = 0; i < text.length(); i++) {
-            char c = text.charAt(i);
-            if (Character.isHighSurrogate(c) && i + 1 < text.length() && Character.isLowSurrogate(text.charAt(i + 1))) {
-                i++;
-            } else if (Character.isSurrogate(c)) {
-                // UTF-8 cannot carry half a character pair; getBytes would silently write '?'
-                throw new IllegalArgumentException("The scenario holds a lone surrogate (half of a character pair,"
-                        + " e.g. \\ud800) at character " + i + "; remove it to make a link.");
-            }
+        int lone = Json.firstLoneSurrogate(text);
+        if (lone >= 0) {
+            // UTF-8 cannot carry half a character pair; getBytes would silently write '?'
+            throw new IllegalArgumentException("The scenario holds a lone surrogate (half of a character pair,"
+                    + " e.g. \\ud800) at character " + lone + "; remove it to make a link.");
         }
         byte[] raw = text.getBytes(StandardCharsets.UTF_8);
         if (raw.length > MAX_TEXT_BYTES) {

@@ -246,4 +246,17 @@ class FacadeFuzzTest {
         }
         assertTrue(valid > n / 10, "enough mutated documents stay valid to reach the analysis: " + valid + " of " + n);
     }
+
+    @Test
+    void linksRefuseWhatTheyCannotCarry() throws IOException {
+        // UTF-8 cannot hold a lone surrogate (Unicode §3.9), and links carry at most 4 MiB of text
+        String doc = seeds().get(0);
+        int q = doc.indexOf("\"title\": \"") + 10;
+        String lone = doc.substring(0, q) + "\uD800" + doc.substring(q);
+        String a = JsonFacade.encodeShare(lone);
+        assertTrue(a.contains("\"share-link\"") && a.contains("lone surrogate"), a);
+        String big = doc.substring(0, q) + "x".repeat(5 << 20) + doc.substring(q);
+        String b = JsonFacade.encodeShare(big);
+        assertTrue(b.contains("\"share-link\"") && b.contains("too large"), b);
+    }
 }
