@@ -47,7 +47,9 @@ import spanwright.structure.TooWideException;
  */
 public final class StructuralAnalysis {
     /** Default state budget of the frontier / subset searches (states kept per level). */
-    public static final long DEFAULT_STATES = 20_000_000L;
+    public static final long DEFAULT_STATES = 4_000_000L;
+    /** Default time budget of branch and bound, per side, in seconds. */
+    public static final double DEFAULT_SECONDS = 30;
     /** Default node budget of branch and bound. */
     public static final long DEFAULT_NODES = 2_000_000L;
     /** Default node budget of the decision diagrams. */
@@ -117,7 +119,17 @@ public final class StructuralAnalysis {
 
     /** Runs with the default budgets. */
     public static Result run(Scenario sc) {
-        return run(sc, DEFAULT_STATES, DEFAULT_NODES, DEFAULT_DIAGRAM_NODES);
+        return run(sc, DEFAULT_SECONDS);
+    }
+
+    /** Runs with the default state and node budgets and {@code seconds} for each branch-and-bound side. */
+    public static Result run(Scenario sc, double seconds) {
+        return run(sc, DEFAULT_STATES, DEFAULT_NODES, DEFAULT_DIAGRAM_NODES, seconds);
+    }
+
+    /** Runs with the given budgets and {@link #DEFAULT_SECONDS}. */
+    public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes) {
+        return run(sc, maxStates, maxNodes, maxDiagramNodes, DEFAULT_SECONDS);
     }
 
     /**
@@ -125,7 +137,7 @@ public final class StructuralAnalysis {
      *
      * @throws ScenarioException {@code method} when the scenario has a promise (see {@link #refusal})
      */
-    public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes) {
+    public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes, double seconds) {
         String refusal = refusal(sc);
         if (refusal != null) {
             throw new ScenarioException("method", "$.promise", refusal);
@@ -144,18 +156,18 @@ public final class StructuralAnalysis {
         if (host) {
             kind = "one positive literal per edge" + (anyAlways ? " (with always-present edges)" : "");
             if (!anyAlways) {
-                positive = pathSide(sc, maxStates, maxNodes);
+                positive = pathSide(sc, maxStates, maxNodes, seconds);
             }
-            negative = bondSide(sc, maxStates, maxNodes);
+            negative = bondSide(sc, maxStates, maxNodes, seconds);
         } else {
             kind = promised ? "a promise: every leaf tested against it" : "shared variables or negated literals";
         }
         if (positive == null) {
-            positive = branchAndBound(sc, true, maxNodes, host ? "always-present edges make minimal positive inputs"
+            positive = branchAndBound(sc, true, maxNodes, seconds, host ? "always-present edges make minimal positive inputs"
                     + " more than paths: " : "");
         }
         if (negative == null) {
-            negative = branchAndBound(sc, false, maxNodes, "");
+            negative = branchAndBound(sc, false, maxNodes, seconds, "");
         }
         Reduction reduction = reduction(sc, maxDiagramNodes);
         String method = "structure (" + kind + "): " + sc.variableCount() + " variables, 2^" + sc.variableCount()
@@ -193,7 +205,7 @@ public final class StructuralAnalysis {
         return new HostGraph(classes, u, v, weight, classOf[sc.s()], classOf[sc.t()]);
     }
 
-    private static Side pathSide(Scenario sc, long maxStates, long maxNodes) {
+    private static Side pathSide(Scenario sc, long maxStates, long maxNodes, double seconds) {
         int n = sc.vertexCount();
         int[] identity = new int[n];
         for (int i = 0; i < n; i++) {
@@ -205,7 +217,18 @@ public final class StructuralAnalysis {
         try {
             path = PathsAndBonds.heaviestPath(g, maxStates);
         } catch (TooWideException e) {
-            return branchAndBound(sc, true, maxNodes, e.getMessage() + "; fell back to ");
+            // any simple path has at most |V| − 1 edges: the heaviest |V| − 1 weights bound W₊
+            double[] w = new double[g.edgeCount()];
+            for (int k = 0; k < w.length; k++) {
+                w[k] = g.weight(k);
+            }
+            java.util.Arrays.sort(w);
+            double cap = 0;
+            for (int k = w.length - 1; k >= 0 && k >= w.length - (g.vertexCount() - 1); k--) {
+                cap += w[k];
+            }
+            return capped(branchAndBound(sc, true, maxNodes, seconds, e.getMessage() + "; fell back to "), cap,
+                    "the |V| - 1 heaviest edges");
         }
         if (Double.isNaN(path.value())) {
             return new Side(Double.NaN, Double.NaN, true, null, BigInteger.ZERO, "heaviest simple s-t path: "
@@ -222,7 +245,7 @@ public final class StructuralAnalysis {
                 "heaviest simple s-t path (" + path.method() + ")");
     }
 
-    private static Side bondSide(Scenario sc, long maxStates, long maxNodes) {
+    private static Side bondSide(Scenario sc, long maxStates, long maxNodes, double seconds) {
         int n = sc.vertexCount();
         // contract always-present edges: they cannot be cut
         int[] parent = new int[n];
@@ -257,7 +280,13 @@ public final class StructuralAnalysis {
         try {
             bond = PathsAndBonds.heaviestBond(g, maxStates);
         } catch (TooWideException e) {
-            return branchAndBound(sc, false, maxNodes, e.getMessage() + "; fell back to ");
+            // a bond is a set of switchable edges: all of them together bound W₋
+            double cap = 0;
+            for (int k = 0; k < g.edgeCount(); k++) {
+                cap += 1 / g.weight(k);
+            }
+            return capped(branchAndBound(sc, false, maxNodes, seconds, e.getMessage() + "; fell back to "), cap,
+                    "the sum of 1/w over all switchable edges");
         }
         boolean[] x = new boolean[sc.variableCount()];
         java.util.Arrays.fill(x, true);
@@ -271,6 +300,15 @@ public final class StructuralAnalysis {
                 "heaviest s-t bond (" + bond.method() + ")");
     }
 
+    /** The side with its upper end lowered to {@code cap}, a bound valid for every input (derived in the caller). */
+    private static Side capped(Side side, double cap, String what) {
+        if (side.exact() || !(cap < side.upper())) {
+            return side;
+        }
+        return new Side(side.value(), Math.max(cap, side.value()), side.exact(), side.worst(), side.extremeInputs(),
+                side.method() + "; upper end from " + what);
+    }
+
     private static int find(int[] p, int x) {
         while (p[x] != x) {
             p[x] = p[p[x]];
@@ -279,15 +317,16 @@ public final class StructuralAnalysis {
         return x;
     }
 
-    private static Side branchAndBound(Scenario sc, boolean positiveSide, long maxNodes, String why) {
+    private static Side branchAndBound(Scenario sc, boolean positiveSide, long maxNodes, double seconds, String why) {
         EdgeArrays a = EdgeArrays.of(sc);
         BranchAndBound bb = new BranchAndBound(sc.vertexCount(), sc.s(), sc.t(), a.u(), a.v(), a.weight(),
                 sc.variableCount(), a.variable(), a.positive(), branchingOrder(sc), maxNodes, promiseTest(sc));
+        bb.setDeadline(System.nanoTime() + (long) (seconds * 1e9));
         BranchAndBound.Outcome o = positiveSide ? bb.maxResistance() : bb.maxCapacitance();
         InputDetail worst = o.bestAssignment() == null ? null : detail(sc, o.bestAssignment());
         double value = worst == null ? Double.NaN : worst.witness.value;
         String how = why + "branch and bound with Rayleigh bounds, " + o.nodes() + " nodes"
-                + (o.exact() ? ", exact" : ", node budget reached: certified interval");
+                + (o.exact() ? ", exact" : ", node or time budget reached: certified interval");
         return new Side(value, o.exact() ? value : o.upper(), o.exact(), worst, null, how);
     }
 

@@ -14,13 +14,14 @@ import spanwright.model.Scenario;
 final class AnalyzeMore {
     private AnalyzeMore() {}
 
-    static int structure(Scenario sc, Analysis.Choice choice, boolean json, boolean inputs, PrintStream out) {
+    static int structure(Scenario sc, Analysis.Choice choice, boolean json, boolean inputs, double seconds,
+            PrintStream out) {
         if (inputs) {
             throw new Main.UsageException("analyze: --inputs lists every input, and this scenario has 2^"
                     + sc.variableCount() + " of them; the structural method shows the worst inputs instead (drop"
                     + " --inputs), and --input BITS shows any one input's witness");
         }
-        StructuralAnalysis.Result r = StructuralAnalysis.run(sc);
+        StructuralAnalysis.Result r = StructuralAnalysis.run(sc, seconds);
         if (json) {
             out.println(Json.writePretty(StructureJson.analysis(r, choice)).trim());
         } else {

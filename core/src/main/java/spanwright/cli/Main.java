@@ -93,12 +93,14 @@ public final class Main {
         return "usage: java -jar spanwright.jar <command> [options]\n"
                 + "\n"
                 + "  analyze [FILE] [--json] [--inputs] [--method auto|enumerate|structure] [--input BITS]\n"
+                + "          [--seconds S]\n"
                 + "      Check the reduction, find the worst inputs with their witnesses (R on positive inputs,\n"
                 + "      C on negative inputs) and the bound sqrt(W+ W-). Up to 20 variables every input is\n"
                 + "      enumerated; beyond, W+ and W- come from the graph's structure (heaviest path and bond,\n"
                 + "      branch and bound, decision diagrams). With no FILE, the built-in default scenario.\n"
                 + "      --json: machine-readable; --inputs: every input's row (enumeration only);\n"
-                + "      --input BITS: one input's witness, at any size.\n"
+                + "      --input BITS: one input's witness, at any size; --seconds: branch and bound's time per\n"
+                + "      side (default 30), after which it reports a certified interval.\n"
                 + "  optimize [FILE] [--starts K] [--seed S] [--iterations N] [--seconds T] [--tie literal]\n"
                 + "           [--json] [-o OUT.json]\n"
                 + "      Choose edge weights that lower sqrt(W+ W-) (monotone descent, with certificates);\n"
@@ -146,12 +148,26 @@ public final class Main {
         String file = null;
         Analysis.Method method = Analysis.Method.AUTO;
         String input = null;
+        double seconds = spanwright.analysis.StructuralAnalysis.DEFAULT_SECONDS;
         for (int i = 0; i < args.size(); i++) {
             String a = args.get(i);
             if (a.equals("--json")) {
                 json = true;
             } else if (a.equals("--inputs")) {
                 inputs = true;
+            } else if (a.equals("--seconds")) {
+                if (i + 1 >= args.size()) {
+                    throw new UsageException("analyze: --seconds needs a value");
+                }
+                String value = args.get(++i);
+                try {
+                    seconds = Double.parseDouble(value);
+                } catch (NumberFormatException e) {
+                    seconds = Double.NaN;
+                }
+                if (!(seconds > 0) || Double.isInfinite(seconds)) {
+                    throw new UsageException("analyze: --seconds takes a positive number of seconds, got \"" + value + "\"");
+                }
             } else if (a.equals("--method") || a.equals("--input")) {
                 if (i + 1 >= args.size()) {
                     throw new UsageException("analyze: " + a + " needs a value");
@@ -182,7 +198,7 @@ public final class Main {
         }
         Analysis.Choice choice = Analysis.choose(sc, method);
         if (choice.method() == Analysis.Method.STRUCTURE) {
-            return AnalyzeMore.structure(sc, choice, json, inputs, out);
+            return AnalyzeMore.structure(sc, choice, json, inputs, seconds, out);
         }
         AnalysisResult r = Analysis.run(sc);
         if (json) {

@@ -42,8 +42,9 @@ final class StructureText {
         sb.append(Main.row("reduction", 12, verdict));
         side(sb, "positive", "W+ = max R = ", r.positive());
         side(sb, "negative", "W- = max C = ", r.negative());
-        sb.append(Main.row("bound", 12, "sqrt(W+ W-) = " + NumberText.sig(r.complexity(), 10)
-                + (r.exact() ? "" : " (not exact: see the intervals above)")));
+        sb.append(Main.row("bound", 12, "sqrt(W+ W-) = " + (r.exact() ? NumberText.sig(r.complexity(), 10)
+                : "in [" + NumberText.sig(r.complexity(), 10) + ", " + NumberText.sig(Math.sqrt(r.positive().upper()
+                        * r.negative().upper()), 10) + "] (certified interval: a budget was reached)")));
         sb.append(Main.row("how", 12, r.method()));
         sb.append("  note: ").append(Normalisation.CONVENTION).append(".\n");
         sb.append("  caution: ").append(Normalisation.CAUTION).append(".\n");

@@ -39,6 +39,7 @@ public final class StructureJson {
         m.put("maxResistance", side(sc, r.positive()));
         m.put("maxCapacitance", side(sc, r.negative()));
         m.put("complexity", ResultJson.num(r.complexity()));
+        m.put("complexityUpper", ResultJson.num(Math.sqrt(r.positive().upper() * r.negative().upper())));
         m.put("exact", r.exact());
         m.put("convention", Normalisation.CONVENTION);
         m.put("caution", Normalisation.CAUTION);

@@ -45,6 +45,7 @@ public final class BranchAndBound {
     private final boolean[] inP;
     private final boolean[] inQ;
     private final long maxNodes;
+    private long deadlineNanos = Long.MAX_VALUE;
     private final int[] polarity; // bit 1: occurs positive, bit 2: occurs negated
 
     private final java.util.function.Predicate<boolean[]> domain;
@@ -86,6 +87,14 @@ public final class BranchAndBound {
                 polarity[edgeVariable[e]] |= edgePositive[e] ? 1 : 2;
             }
         }
+    }
+
+    /**
+     * Stops the search at {@code System.nanoTime()} ≥ {@code deadline} as if the node budget were
+     * spent (the result is then the certified interval). Checked every 64 nodes.
+     */
+    public void setDeadline(long deadlineNanos) {
+        this.deadlineNanos = deadlineNanos;
     }
 
     /** W₊: the largest effective resistance over inputs where s and t are connected. */
@@ -168,7 +177,7 @@ public final class BranchAndBound {
         if (!Double.isNaN(best) && bound <= best * (1 + 1e-12)) {
             return;
         }
-        if (nodes >= maxNodes) {
+        if (nodes >= maxNodes || (nodes & 63) == 0 && System.nanoTime() >= deadlineNanos) {
             outOfBudget = true;
             openUpper = Math.max(openUpper, bound);
             return;

@@ -286,4 +286,21 @@ class StructuralAnalysisTest {
             assertEquals(d.witness.connected, !d.f, "counterexample " + x);
         }
     }
+
+    @Test
+    void aHostGraphTooWideForItsBudgetFallsBackToACertifiedInterval() {
+        // 3×4 grid (17 variables): a budget of 5 frontier states forces the fallback; enumeration
+        // (independent computation) must lie inside each side's interval.
+        Scenario sc = HostGraphBuilder.family("grid", new int[] {3, 4}, null, null, 0, -1).scenario();
+        AnalysisResult e = Analysis.run(sc);
+        StructuralAnalysis.Result r = StructuralAnalysis.run(sc, 5, 40, 1000, 5);
+        double[] truth = {e.maxResistance(), e.maxCapacitance()};
+        StructuralAnalysis.Side[] sides = {r.positive(), r.negative()};
+        for (int k = 0; k < 2; k++) {
+            assertTrue(sides[k].method().contains("fell back"), sides[k].method());
+            assertTrue(sides[k].value() <= truth[k] * (1 + 1e-12), sides[k].value() + " > " + truth[k]);
+            assertTrue(sides[k].upper() >= truth[k] * (1 - 1e-12), sides[k].upper() + " < " + truth[k]);
+            assertTrue(Double.isFinite(sides[k].upper()), "the derived caps keep the upper end finite");
+        }
+    }
 }
