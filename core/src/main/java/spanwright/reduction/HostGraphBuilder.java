@@ -79,6 +79,8 @@ public final class HostGraphBuilder {
         final List<int[]> edges = new ArrayList<>();
         final List<String> edgeIds = new ArrayList<>();
         final List<Double> weights = new ArrayList<>();
+        /** Each edge's condition as text ({@code a}, {@code !a}, {@code 1}), or null: one fresh variable per edge. */
+        List<String> literals;
         String s;
         String t;
         String description;
@@ -119,6 +121,96 @@ public final class HostGraphBuilder {
         h.s = host.vertices().get(host.s()).id();
         h.t = host.vertices().get(host.t()).id();
         h.description = "a given graph (" + h.ids.size() + " vertices, " + h.edges.size() + " edges)";
+        placeOnCircleUnlessPlaced(h);
+        return finish(h, s, t, atMostMissing, "given", null);
+    }
+
+    /**
+     * A host read from a graph file ({@code spanwright.io.GraphFormats}): its vertices (positions
+     * kept when every vertex has one, otherwise all on a circle), its edges (the file's edge ids
+     * when given) with self-loops dropped. By default one fresh variable per edge, as
+     * {@link #given}; with {@code literalKey}, each edge's condition is the text of that edge
+     * attribute ({@code a}, {@code !a} or {@code 1}) and the variables are the names met, in file
+     * order. The weight is the number in the attribute {@code weightKey} (1 where an edge lacks it).
+     * s and t are {@code s}, {@code t}, or else the vertices whose attribute {@code role} is
+     * {@code s}, {@code t} (as {@code GraphFormats} writes them). The function is the connectivity form, as for every host.
+     * Cost: O(|V| + |E|) plus the capped path count of {@link #given}.
+     *
+     * @param s the id of s, or null for the vertex the file marks {@code role = s}; likewise {@code t}
+     * @param literalKey the edge attribute holding the literal, or null for one variable per edge
+     * @param weightKey the edge attribute holding the weight (resistance)
+     * @throws ScenarioException {@code missing} ({@code $.s}, {@code $.t}: neither given nor in the
+     *     file), {@code ambiguous} (two vertices marked alike), {@code unknown-vertex}, {@code same-s-t}, {@code weight} ({@code $.graph.edges[i]}:
+     *     not a number &gt; 0), {@code literal} ({@code $.graph.edges[i]}: missing or not a literal),
+     *     {@code promise} (a promise on edges missing with literals from the file)
+     */
+    public static Built imported(spanwright.io.GraphFile file, String s, String t, int atMostMissing,
+            String literalKey, String weightKey) {
+        Host h = new Host();
+        for (int i = 0; i < file.vertexCount(); i++) {
+            h.ids.add(file.vertexIds().get(i));
+            h.xy.add(new double[] {file.x(i), file.y(i)});
+        }
+        if (literalKey != null) {
+            h.literals = new ArrayList<>();
+            if (atMostMissing >= 0) {
+                throw new ScenarioException("promise", "$.atMostMissing", "\"at most k edges missing\" needs one variable"
+                        + " per edge; with literals taken from the file's \"" + literalKey + "\" attribute, state a"
+                        + " promise in the scenario file instead");
+            }
+        }
+        List<spanwright.io.GraphFile.Link> links = file.edges();
+        for (int i = 0; i < links.size(); i++) {
+            spanwright.io.GraphFile.Link l = links.get(i);
+            if (l.u() == l.v()) {
+                continue;
+            }
+            String where = "$.graph.edges[" + i + "]";
+            String name = "edge " + (l.id() != null ? "\"" + l.id() + "\" " : "") + h.ids.get(l.u()) + " – " + h.ids.get(l.v());
+            double w = 1;
+            String wt = l.attributes().get(weightKey);
+            if (wt != null) {
+                w = spanwright.io.GraphFormats.number(wt);
+                if (!(w > 0)) {
+                    throw new ScenarioException("weight", where, name + " has " + weightKey + " = \"" + wt
+                            + "\"; a weight is a resistance, a finite number > 0");
+                }
+            }
+            if (h.literals != null) {
+                String lit = l.attributes().get(literalKey);
+                if (lit == null || lit.trim().isEmpty()) {
+                    throw new ScenarioException("literal", where, name + " has no \"" + literalKey + "\" attribute;"
+                            + " give every edge one (a, !a or 1), or import without --literal-key for one variable per edge");
+                }
+                h.literals.add(lit.trim());
+            }
+            h.edges.add(new int[] {l.u(), l.v()});
+            h.edgeIds.add(l.id());
+            h.weights.add(w);
+        }
+        h.s = file.vertexWith(spanwright.io.GraphFormats.ROLE, "s");
+        h.t = file.vertexWith(spanwright.io.GraphFormats.ROLE, "t");
+        for (String[] end : new String[][] {{"s", s, h.s}, {"t", t, h.t}}) {
+            if (end[1] == null && end[2] != null && end[2].startsWith("?")) {
+                throw new ScenarioException("ambiguous", "$." + end[0], "vertices " + end[2].substring(1) + " are both"
+                        + " marked role = " + end[0] + " in the file; name " + end[0] + " with --" + end[0] + " ID");
+            }
+        }
+        if (s == null && h.s == null) {
+            throw new ScenarioException("missing", "$.s", "the graph file does not say which vertex is s; name it with"
+                    + " --s ID (vertices: " + sample(h.ids) + ")");
+        }
+        if (t == null && h.t == null) {
+            throw new ScenarioException("missing", "$.t", "the graph file does not say which vertex is t; name it with"
+                    + " --t ID (vertices: " + sample(h.ids) + ")");
+        }
+        h.description = "a " + file.format().title() + " graph (" + h.ids.size() + " vertices, " + h.edges.size()
+                + " edges)";
+        placeOnCircleUnlessPlaced(h);
+        return finish(h, s, t, atMostMissing, "import", null);
+    }
+
+    private static void placeOnCircleUnlessPlaced(Host h) {
         boolean placed = true;
         for (double[] p : h.xy) {
             placed &= !Double.isNaN(p[0]) && !Double.isNaN(p[1]);
@@ -126,7 +218,6 @@ public final class HostGraphBuilder {
         if (!placed) {
             circle(h);
         }
-        return finish(h, s, t, atMostMissing, "given", null);
     }
 
     private static int param(int[] size, int i, int arity, String family) {
@@ -425,7 +516,10 @@ public final class HostGraphBuilder {
         List<String> vars = new ArrayList<>();
         Set<String> used = new HashSet<>();
         Set<String> edgeIds = new HashSet<>();
-        for (int i = 0; i < m; i++) {
+        if (h.literals != null) {
+            given(h, d, vars);
+        }
+        for (int i = 0; i < m && h.literals == null; i++) {
             int[] e = h.edges.get(i);
             String base = sanitize(h.ids.get(e[0])) + "_" + sanitize(h.ids.get(e[1]));
             String name = base;
@@ -469,12 +563,33 @@ public final class HostGraphBuilder {
         stats.put("paths", paths == null ? null : (Object) paths.size());
         stats.put("promise", promiseText);
         String title = "st-connectivity on " + h.description + ", s = " + sName + ", t = " + tName;
-        String notes = "One variable per host edge (1 = the edge is present). The function is s-t connectivity"
+        String notes = (h.literals == null ? "One variable per host edge (1 = the edge is present)."
+                : "Each edge's literal as the file gives it.") + " The function is s-t connectivity"
                 + " of this graph." + (atMostMissing >= 0 ? " Promise: " + promiseText + "." : "");
         d.allowVariables(atMostMissing >= 0 ? spanwright.io.ScenarioReader.MAX_ENUMERATED_VARIABLES
                 : spanwright.io.ScenarioReader.MAX_VARIABLES);
         Scenario sc = d.build(title, notes, vars, ConnectivityForm.OWN_GRAPH, promise, s, t, "$.size");
         return new Built(sc, stats);
+    }
+
+    /**
+     * Edges with the conditions the host lists ({@link Host#literals}); the variables are the
+     * names met, in edge order. Each text is read as the scenario reader reads an edge's {@code when}.
+     */
+    private static void given(Host h, ScenarioDraft d, List<String> vars) {
+        for (int i = 0; i < h.literals.size(); i++) {
+            String lit = h.literals.get(i);
+            String name = lit.startsWith("!") ? lit.substring(1).trim() : lit;
+            if (!name.equals("1") && !vars.contains(name) && ExprParser.isName(name) && !ExprParser.isFunctionName(name)) {
+                vars.add(name);
+            }
+        }
+        for (int i = 0; i < h.literals.size(); i++) {
+            int[] e = h.edges.get(i);
+            Condition when = ScenarioReader.condition(h.literals.get(i), vars, "$.graph.edges[" + i + "]");
+            String id = h.edgeIds.get(i) == null ? "e" + (i + 1) : h.edgeIds.get(i);
+            d.edge(id, e[0], e[1], when, h.weights.get(i));
+        }
     }
 
     private static String sample(List<String> ids) {
