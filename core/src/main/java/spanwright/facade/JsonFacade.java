@@ -38,6 +38,9 @@ import spanwright.model.Scenario;
  *   <li>{@code build(request)} → {@code {"ok":true,"scenario":{...},"stats":{...}}}: a scenario
  *       built from a formula, a function, a host graph or a composition (request format on
  *       {@link #build}).</li>
+ *   <li>{@code tikz(scenario, options)} → {@code {"ok":true,"standalone":"...","body":"..."}}: the
+ *       drawing as a TikZ figure (a document for pdflatex, and the picture for {@code \input});
+ *       options on {@link #tikz}.</li>
  *   <li>{@code encodeShare(scenario)} → {@code {"ok":true,"fragment":"..."}};
  *       {@code decodeShare(fragment)} → {@code {"ok":true,"scenario":"...json text..."}}</li>
  * </ul>
@@ -177,6 +180,60 @@ public final class JsonFacade {
             m.putAll(ResultJson.detail(sc, Analysis.detail(sc, mask)));
             // an input outside the promise can still be inspected, but say so
             m.put("inDomain", sc.promise().allows(mask));
+            return Json.write(m);
+        } catch (RuntimeException e) {
+            return fail(e);
+        }
+    }
+
+    /**
+     * The drawing as a TikZ figure ({@link TikzFigure}). Options (JSON object, all keys optional):
+     * {@code "input"}: the focused input ("0110"; null or absent for none); {@code "positive"},
+     * {@code "negative"}: W₊ and W₋ when the caller has them (both, or the analysis is run for the
+     * caption; a side with no input is null). Answer {@code {"ok":true,"standalone":"…","body":"…"}}
+     * or the error envelope ({@code $.input}, {@code $options.…}). Cost: the analysis when W₊, W₋ are
+     * not given, plus one input's witness.
+     */
+    public static String tikz(String scenarioJson, String optionsJson) {
+        try {
+            Scenario sc = ScenarioReader.read(scenarioJson);
+            long mask = -1;
+            double positive = Double.NaN;
+            double negative = Double.NaN;
+            boolean given = false;
+            for (Map.Entry<String, Object> e : ScenarioReader.options(optionsJson).entrySet()) {
+                Object v = e.getValue();
+                String path = "$options." + e.getKey();
+                switch (e.getKey()) {
+                    case "input":
+                        if (v != Json.NULL) {
+                            mask = SimulationJson.focus(ScenarioReader.string(v, path), sc, "$.input");
+                        }
+                        break;
+                    case "positive":
+                    case "negative": {
+                        double d = v == Json.NULL ? Double.NaN : v instanceof Double ? (Double) v : -1;
+                        if (v != Json.NULL && !(d >= 0)) {
+                            throw new ScenarioException("option", path, e.getKey() + " is W" + (e.getKey().equals("positive")
+                                    ? "+" : "-") + ", a number >= 0, or null when there is no such input");
+                        }
+                        given = true;
+                        if (e.getKey().equals("positive")) {
+                            positive = d;
+                        } else {
+                            negative = d;
+                        }
+                        break;
+                    }
+                    default:
+                        throw ScenarioReader.unknownOption(e.getKey(), "input, positive, negative");
+                }
+            }
+            TikzFigure.Text t = TikzFigure.draw(sc, mask, given ? new double[] {positive, negative} : null);
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("ok", true);
+            m.put("standalone", t.standalone);
+            m.put("body", t.body);
             return Json.write(m);
         } catch (RuntimeException e) {
             return fail(e);

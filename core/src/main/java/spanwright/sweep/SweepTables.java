@@ -88,21 +88,7 @@ public final class SweepTables {
 
     /** Text for a LaTeX comment or a \multicolumn cell: no line breaks, special characters escaped. */
     private static String latexText(String s) {
-        StringBuilder sb = new StringBuilder();
-        for (int i = 0; i < s.length(); i++) {
-            char c = s.charAt(i);
-            switch (c) {
-                case '\\': sb.append("\\textbackslash{}"); break;
-                case '%': case '&': case '#': case '_': case '$': case '{': case '}':
-                    sb.append('\\').append(c);
-                    break;
-                case '^': sb.append("\\^{}"); break;
-                case '~': sb.append("\\~{}"); break;
-                case '\n': sb.append(' '); break;
-                default: sb.append(c);
-            }
-        }
-        return sb.toString();
+        return spanwright.io.TexText.escape(s);
     }
 
     /** A LaTeX {@code tabular} of the rows with the fitted exponents and the cautions. */

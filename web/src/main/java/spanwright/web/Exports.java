@@ -136,4 +136,10 @@ public final class Exports {
     public static String sweepReport(String requestJson) {
         return JsonFacade.sweepReport(requestJson);
     }
+
+    /** The drawing as a TikZ figure ({@link JsonFacade#tikz}). */
+    @JSExport
+    public static String tikz(String scenarioJson, String optionsJson) {
+        return JsonFacade.tikz(scenarioJson, optionsJson);
+    }
 }
