@@ -6,8 +6,11 @@ import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import spanwright.io.GraphFile;
+import spanwright.io.GraphFormats;
 import spanwright.reduction.Built;
 import spanwright.reduction.BuildRequest;
+import spanwright.reduction.HostGraphBuilder;
 import spanwright.io.Json;
 import spanwright.model.ScenarioException;
 import spanwright.io.ScenarioWriter;
@@ -27,10 +30,14 @@ final class BuildCommand {
                 + "  build tree EXPR|TABLE [--vars a,b,c] [--diagram] [--order a,b,c] [--weights guess|unit] [-o FILE]\n"
                 + "  build host FAMILY SIZE [--s V] [--t V] [--seed N] [--at-most-missing K] [-o FILE]\n"
                 + "  build host given FILE [--s V] [--t V] [--at-most-missing K] [-o FILE]\n"
+                + "  build host import GRAPHFILE [--format graphml|dot|gml|csv] [--s V] [--t V]\n"
+                + "                  [--literal-key NAME] [--weight-key NAME] [--at-most-missing K] [-o FILE]\n"
                 + "  build compose OUTER.json INNER.json [-o FILE]\n"
                 + "      Write a scenario built from a formula (series-parallel), a function (decision tree\n"
                 + "      or diagram; TABLE = 2^n characters 0/1), a host graph (FAMILY: path, cycle, grid,\n"
-                + "      complete, bipartite, hypercube, random; SIZE like 3x4) or a composition.\n";
+                + "      complete, bipartite, hypercube, random; SIZE like 3x4; or a GraphML, DOT, GML or\n"
+                + "      CSV edge-list file: one variable per edge, or the literal from the edge attribute\n"
+                + "      --literal-key; weight from --weight-key, default \"weight\") or a composition.\n";
     }
 
     static int run(List<String> args, PrintStream out, PrintStream err) {
@@ -55,6 +62,7 @@ final class BuildCommand {
         }
         Map<String, Object> request = new LinkedHashMap<>();
         Map<String, String> files = new LinkedHashMap<>();
+        String importFile = null;
         switch (what) {
             case "formula":
                 allow(what, options, "--vars", "--weights", "-o");
@@ -73,9 +81,17 @@ final class BuildCommand {
                 request.put("diagram", options.containsKey("--diagram"));
                 break;
             case "host": {
+                if (positional.size() == 2 && positional.get(0).equals("import")) {
+                    allow(what, options, "--s", "--t", "--format", "--literal-key", "--weight-key", "--at-most-missing",
+                            "-o");
+                    files.put("$.graph", positional.get(1));
+                    importFile = positional.get(1);
+                    break;
+                }
                 allow(what, options, "--s", "--t", "--seed", "--at-most-missing", "-o");
                 if (positional.size() != 2) {
-                    throw new Main.UsageException("build host: give FAMILY and SIZE (e.g. grid 3x4) or given FILE");
+                    throw new Main.UsageException("build host: give FAMILY and SIZE (e.g. grid 3x4), given FILE.json"
+                            + " or import GRAPHFILE");
                 }
                 request.put("kind", "host");
                 request.put("family", positional.get(0));
@@ -105,10 +121,12 @@ final class BuildCommand {
             default:
                 throw new Main.UsageException("build: unknown kind \"" + what + "\" (formula, tree, host, compose)");
         }
-        OutputFiles.refuseClashes("build " + what, new ArrayList<>(files.values()), Arrays.asList(options.get("-o")));
+        List<String> inputs = new ArrayList<>(files.values());
+        inputs.add(importFile);
+        OutputFiles.refuseClashes("build " + what, inputs, Arrays.asList(options.get("-o")));
         Built built;
         try {
-            built = BuildRequest.run(request);
+            built = importFile != null ? importHost(importFile, options) : BuildRequest.run(request);
         } catch (ScenarioException e) {
             err.println("spanwright: build " + what + ": " + where(e.path(), files) + ": " + e.getMessage() + " ["
                     + e.code() + "]");
@@ -130,6 +148,35 @@ final class BuildCommand {
         }
         err.println(sb);
         return Main.OK;
+    }
+
+    /**
+     * {@code build host import}: the graph file read through {@link GraphFormats} (format from
+     * {@code --format} or the file name's ending), then {@link spanwright.reduction.HostGraphBuilder#imported}.
+     * Not a {@link BuildRequest}: the page's build must not reach jgrapht-io (see GraphFormats).
+     */
+    private static Built importHost(String file, Map<String, String> options) {
+        String named = options.get("--format");
+        GraphFile.Format format = named != null ? GraphFile.Format.named(named) : GraphFile.Format.ofFileName(file);
+        if (format == null) {
+            throw new Main.UsageException("build host import: " + (named != null ? "unknown format \"" + named + "\""
+                    : "cannot tell the format of " + file + " from its name") + "; give --format graphml, dot, gml or csv");
+        }
+        int missing = -1;
+        if (options.get("--at-most-missing") != null) {
+            try {
+                missing = Integer.parseInt(options.get("--at-most-missing").trim());
+            } catch (NumberFormatException e) {
+                missing = -2;
+            }
+            if (missing < 0) {
+                throw new Main.UsageException("build host: --at-most-missing takes a whole number >= 0, got \""
+                        + options.get("--at-most-missing") + "\"");
+            }
+        }
+        GraphFile g = GraphFormats.read(Main.readScenarioText(file), format, "$.graph");
+        return HostGraphBuilder.imported(g, options.get("--s"), options.get("--t"), missing,
+                options.get("--literal-key"), options.getOrDefault("--weight-key", GraphFormats.WEIGHT));
     }
 
     private static void allow(String what, Map<String, String> options, String... allowed) {
@@ -229,6 +276,8 @@ final class BuildCommand {
                 return "--seed";
             case "$.atMostMissing":
                 return "--at-most-missing";
+            case "$.literal":
+                return "--literal-key";
             case "$.weights":
                 return "--weights";
             default:

@@ -64,6 +64,7 @@ public final class Main {
                 case "sweep": return SweepCommand.run(rest, out, err);
                 case "merge": return MergeCommand.run(rest, out, err);
                 case "simulate": return SimulateCommand.run(rest, out, err);
+                case "export": return ExportCommand.run(rest, out, err);
                 default:
                     err.println("spanwright: unknown command \"" + args[0] + "\"");
                     err.print(usage());
@@ -114,6 +115,7 @@ public final class Main {
                 + BoundsCommand.usage()
                 + SweepCommand.usage()
                 + SimulateCommand.usage()
+                + ExportCommand.usage()
                 + "\n"
                 + "exit status: 0 ok, 1 reduction wrong on some input, 2 invalid scenario or usage, or a file\n"
                 + "  that cannot be read or written (an output may not name an input), 3 internal error\n";
