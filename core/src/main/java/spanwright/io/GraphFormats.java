@@ -44,8 +44,8 @@ import spanwright.model.Vertex;
  * ({@code "x,y"} or {@code "x,y!"}, points, y upwards in Graphviz) is read with y negated and
  * written the same way. CSV has no positions.
  *
- * <p>Cost: O(file size) for reading, O(|V| + |E|) for writing. Not thread-safe concerns: every
- * call uses its own importer or exporter.
+ * <p>Cost: O(file size) for reading, O(|V| + |E|) for writing. Stateless: every call makes its
+ * own importer or exporter.
  */
 public final class GraphFormats {
     /** The attribute names Spanwright writes and reads back by default. */
