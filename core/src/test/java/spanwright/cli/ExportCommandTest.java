@@ -72,10 +72,11 @@ class ExportCommandTest {
         String before = Files.readString(json);
         String[] r = run("export", json.toString(), "--graphml", json.toString());
         assertEquals("2", r[0]);
-        assertTrue(r[2].contains("is the input file"), r[2]);
+        assertTrue(r[2].contains("is also an input"), r[2]);
         assertEquals(before, Files.readString(json), "the input is untouched");
         r = run("export", json.toString(), "--dot", dir.resolve("a").toString(), "--graphml", dir.resolve("a").toString());
         assertEquals("2", r[0]);
+        assertTrue(r[2].contains("name the same file"), r[2]);
         r = run("export", json.toString());
         assertEquals("2", r[0]);
         assertTrue(r[2].contains("--graphml"), r[2]);
@@ -91,7 +92,7 @@ class ExportCommandTest {
         Files.copy(Path.of("src/test/resources/graphs/bridge-networkx.graphml"), src);
         r = run("build", "host", "import", src.toString(), "--s", "s", "--t", "t", "-o", src.toString());
         assertEquals("2", r[0]);
-        assertTrue(r[2].contains("is the input file"), r[2]);
+        assertTrue(r[2].contains("is also an input"), r[2]);
         r = run("build", "host", "import", "src/test/resources/graphs/bridge.json", "--s", "s", "--t", "t");
         assertEquals("2", r[0]);
         assertTrue(r[2].contains("--format"), r[2]);
