@@ -17,7 +17,8 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
  *   Z ← P₊(V),   X ← P₊(−V)/μ                 (EJML symmetric eigendecomposition per block)
  * </pre>
  * so X and Z stay PSD and complementary; μ is rebalanced every few iterations so that the
- * relative primal and dual residuals shrink together. Per iteration O(Σ d³) for the
+ * relative primal and dual residuals shrink together ({@link #BAL}). With {@link #symmetry} only
+ * one block per orbit of a symmetry group is eigendecomposed. Per iteration O(Σ d³) for the
  * eigendecompositions plus a few O(nnz) passes for the Gram system.
  *
  * <p>Converges more slowly than the interior-point method (typically hundreds to thousands of
@@ -40,6 +41,13 @@ final class SplittingSdp {
     private final double[] y;
     private final double[] gramDiagonal;
     private final EigenDecomposition_F64<DMatrixRMaj>[] eig;
+    /**
+     * μ is rebalanced towards primal residual = this × dual residual. The certified lower end
+     * loses about |D| × the dual infeasibility and the upper end about n × the primal one, so the
+     * dual residual is driven lower; measured on a random 7-variable function, 10 gave a certified
+     * width of 1.1e-4 after 1,500 iterations against 7e-4 with 1.
+     */
+    static final double BAL = 10;
     private int iterations;
     private boolean converged;
     private double mu = 1;
@@ -47,6 +55,12 @@ final class SplittingSdp {
     double relaxation = 1.0;
     /** The last P₊(−V)/μ: PSD, the primal output. */
     private final DMatrixRMaj[] psd;
+    /** Symmetry plan (null: none): representative block of each block, and its index map. */
+    private int[] blockRep;
+    private int[][] blockPerm;
+    private int[] orbitOf;
+    private double[] orbitSum;
+    private int[] orbitSize;
 
     @SuppressWarnings({"unchecked", "rawtypes"})
     SplittingSdp(SdpProblem problem) {
@@ -70,6 +84,52 @@ final class SplittingSdp {
         eig = new EigenDecomposition_F64[nb];
         for (int bl = 0; bl < nb; bl++) {
             eig[bl] = DecompositionFactory_DDRM.eig(size[bl], true, true);
+        }
+    }
+
+    /**
+     * Declares a group of symmetries of the problem under which the iterates stay invariant (they
+     * start at zero, and every step commutes with the group): block bl equals block
+     * {@code rep[bl]} with rows and columns renumbered, entry (a, b) of the representative going
+     * to (perm[bl][a], perm[bl][b]) ({@code perm[bl]} null for a representative); constraint k
+     * lies in orbit {@code orbit[k]}. Only representatives are eigendecomposed, the others are
+     * copied, and y is averaged over each orbit after its step (removing rounding drift).
+     */
+    void symmetry(int[] rep, int[][] perm, int[] orbit) {
+        this.blockRep = rep;
+        this.blockPerm = perm;
+        this.orbitOf = orbit;
+        int count = 0;
+        for (int o : orbit) {
+            count = Math.max(count, o + 1);
+        }
+        orbitSum = new double[count];
+        orbitSize = new int[count];
+        for (int o : orbit) {
+            orbitSize[o]++;
+        }
+    }
+
+    private void averageOverOrbits(double[] v) {
+        java.util.Arrays.fill(orbitSum, 0);
+        for (int k = 0; k < m; k++) {
+            orbitSum[orbitOf[k]] += v[k];
+        }
+        for (int k = 0; k < m; k++) {
+            v[k] = orbitSum[orbitOf[k]] / orbitSize[orbitOf[k]];
+        }
+    }
+
+    /** dst = src with rows and columns renumbered by perm. */
+    private static void permuted(DMatrixRMaj src, int[] perm, DMatrixRMaj dst) {
+        int s = src.numRows;
+        double[] sd = src.data;
+        double[] dd = dst.data;
+        for (int a = 0; a < s; a++) {
+            int row = perm[a] * s;
+            for (int b = 0; b < s; b++) {
+                dd[row + perm[b]] = sd[a * s + b];
+            }
         }
     }
 
@@ -98,9 +158,15 @@ final class SplittingSdp {
                 rhs[k] = mu * (p.b[k] - ax[k]) - az[k];
             }
             conjugateGradient(rhs, y);
+            if (orbitOf != null) {
+                averageOverOrbits(y);
+            }
             // V = C − A*(y) − μX; Z = P₊(V); X = P₊(−V)/μ
             p.adjoint(y, v);
             for (int bl = 0; bl < nb; bl++) {
+                if (blockRep != null && blockRep[bl] != bl) {
+                    continue;
+                }
                 double[] vd = v[bl].data;
                 double[] cd = cost[bl].data;
                 double[] xd = x[bl].data;
@@ -114,6 +180,16 @@ final class SplittingSdp {
                 for (int i = 0; i < len; i++) {
                     nd[i] = td[i] / mu;
                     xd[i] = (1 - relaxation) * xd[i] + relaxation * nd[i];
+                }
+            }
+            if (blockRep != null) {
+                for (int bl = 0; bl < nb; bl++) {
+                    int r = blockRep[bl];
+                    if (r != bl) {
+                        permuted(z[r], blockPerm[bl], z[bl]);
+                        permuted(psd[r], blockPerm[bl], psd[bl]);
+                        permuted(x[r], blockPerm[bl], x[bl]);
+                    }
                 }
             }
             // residuals: primal ‖A(X) − b‖, dual ‖A*y + Z − C‖
@@ -147,9 +223,9 @@ final class SplittingSdp {
             dinfSum += dinf;
             if (iterations % 10 == 9) {
                 // a small μ weighs the dual residual more: rebalance towards equal residuals
-                if (pinfSum > 2 * dinfSum) {
+                if (pinfSum > 2 * BAL * dinfSum) {
                     mu = Math.min(1e4, mu * 1.6);
-                } else if (dinfSum > 2 * pinfSum) {
+                } else if (BAL * dinfSum > 2 * pinfSum) {
                     mu = Math.max(1e-4, mu / 1.6);
                 }
                 pinfSum = 0;
