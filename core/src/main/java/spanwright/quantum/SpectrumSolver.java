@@ -14,7 +14,9 @@ import org.ejml.interfaces.decomposition.SingularValueDecomposition_F64;
  * 2 arcsin(σ/2). This is the symmetric-part method, arranged so that small phases — the ones that
  * decide acceptance and the phase gap — come out with absolute accuracy about (|E|+1)·10⁻¹⁶
  * (an eigenvalue of U + Uᵀ near 2 would give θ only to about 10⁻⁸). |0⟩'s weight on a basis
- * vector v_k is (v_k)₀². Cost: one dense SVD with right vectors, O((|E|+1)³), per input.
+ * vector v_k is (v_k)₀², shared evenly within each ±θ pair ({@link #evenPairWeights}); phases
+ * above π/3 are taken from |cos(θ/2)| as well, so a phase of π comes out as π to rounding
+ * ({@link #phaseOf}). Cost: one dense SVD with right vectors, O((|E|+1)³), per input.
  *
  * <p><b>Mutable and single-threaded</b>: the instance owns the work matrix and the EJML
  * decomposition and reuses them on every call. One instance per thread.
@@ -31,7 +33,14 @@ public final class SpectrumSolver {
     private final SpanProgramUnitary unitary;
     private final int dim;
     private final int variableCount;
+    /**
+     * Phases closer than this (radians) form one group whose weights are shared evenly: far above
+     * the phases' rounding (about (|E|+1)·10⁻¹⁶), far below any gap b ≤ 16 bits can resolve.
+     */
+    public static final double PAIR_TOLERANCE = 1e-10;
+
     private final DMatrixRMaj work;
+    private final DMatrixRMaj operator;
     private final DMatrixRMaj right;
     private final SingularValueDecomposition_F64<DMatrixRMaj> svd;
 
@@ -41,6 +50,7 @@ public final class SpectrumSolver {
         this.variableCount = unitary.scenario().variableCount();
         this.work = new DMatrixRMaj(dim, dim);
         this.right = new DMatrixRMaj(dim, dim);
+        this.operator = new DMatrixRMaj(dim, dim);
         this.svd = DecompositionFactory_DDRM.svd(dim, dim, false, true, false);
     }
 
@@ -68,6 +78,7 @@ public final class SpectrumSolver {
                 a[row + j] = (i == j ? 1.0 : 0.0) - unitary.reflectionEntry(i, j) * d[j];
             }
         }
+        operator.setTo(work);
         if (!svd.decompose(work)) {
             double nan = Double.NaN;
             double[] none = new double[PhaseEstimation.MAX_BITS];
@@ -80,11 +91,12 @@ public final class SpectrumSolver {
         double[] phase = new double[dim];
         double[] weight = new double[dim];
         for (int k = 0; k < dim; k++) {
-            phase[k] = 2 * Math.asin(Math.min(1.0, sv[k] / 2));
+            phase[k] = phaseOf(k, sv[k]);
             double v0 = right.get(0, k);
             weight[k] = v0 * v0;
         }
         int[] order = sortedOrder(phase);
+        evenPairWeights(order, phase, weight);
         double zeroWeight = 0;
         double gap = Double.NaN;
         double weightedGap = Double.NaN;
@@ -129,6 +141,59 @@ public final class SpectrumSolver {
         double[] accept = PhaseEstimation.acceptanceByBits(phase, weight);
         return new InputSimulation(mask, variableCount, inDomain, positive, witnessSize, zeroWeight, gap,
                 weightedGap, true, mp, mw, accept, zeroVector, sp, sw);
+    }
+
+    /**
+     * |θ| of right singular vector k with singular value σ = 2|sin(θ/2)|. Below σ = 1 (|θ| &lt; π/3)
+     * 2 arcsin(σ/2) is accurate to about (|E|+1)·10⁻¹⁶; above, arcsin's slope blows up near σ = 2,
+     * so |cos(θ/2)| = ‖(I + U)v‖/2 = ‖2v − (I − U)v‖/2 (same eigenvector: (I + U)ᵀ(I + U) = 2I + U + Uᵀ)
+     * is computed too and |θ| = 2 atan2(σ/2, |cos(θ/2)|), exact to rounding up to |θ| = π. O(dim²).
+     */
+    private double phaseOf(int k, double sigma) {
+        if (sigma <= 1) {
+            return 2 * Math.asin(sigma / 2);
+        }
+        double[] a = operator.data;
+        double sum = 0;
+        for (int i = 0; i < dim; i++) {
+            double av = 0;
+            int row = i * dim;
+            for (int j = 0; j < dim; j++) {
+                av += a[row + j] * right.get(j, k);
+            }
+            double c = 2 * right.get(i, k) - av;
+            sum += c * c;
+        }
+        return 2 * Math.atan2(sigma / 2, Math.sqrt(sum) / 2);
+    }
+
+    /**
+     * Splits |0⟩'s weight evenly over each group of equal phases 0 &lt; |θ| &lt; π (within
+     * {@link #PAIR_TOLERANCE}). Such a group spans the real planes of pairs e^{±iθ}; the SVD's
+     * real basis of a plane divides the weight arbitrarily between its two vectors, while the
+     * complex eigenvectors of e^{iθ} and e^{−iθ} carry equal weight (|0⟩ is real), so each entry
+     * gets the group's mean. The group's total — all that acceptance and the phase gap use — is
+     * unchanged. O(dim).
+     */
+    private static void evenPairWeights(int[] order, double[] phase, double[] weight) {
+        int r = 0;
+        while (r < order.length) {
+            int end = r + 1;
+            while (end < order.length && phase[order[end]] - phase[order[end - 1]] <= PAIR_TOLERANCE) {
+                end++;
+            }
+            double theta = phase[order[r]];
+            if (end - r > 1 && theta > ZERO_PHASE && phase[order[end - 1]] < Math.PI - ZERO_PHASE) {
+                double total = 0;
+                for (int q = r; q < end; q++) {
+                    total += weight[order[q]];
+                }
+                for (int q = r; q < end; q++) {
+                    weight[order[q]] = total / (end - r);
+                }
+            }
+            r = end;
+        }
     }
 
     /** Indices of {@code v} in ascending order of value (insertion sort; dim is at most a few hundred). */

@@ -206,7 +206,8 @@ class SpectrumTest {
                     for (int k = 0; k < p.length; k++) {
                         if (Math.abs(p[k] - theta) < 1e-9) {
                             onBlock += w[k];
-                        } else if (Math.abs(p[k] - Math.PI) < 1e-7) {
+                        } else if (Math.abs(p[k] - Math.PI) < 1e-13) {
+                            // exact π to rounding: the phase comes from |cos(θ/2)| there
                             atPi += w[k];
                         }
                     }
@@ -215,6 +216,34 @@ class SpectrumTest {
                 }
             }
         }
+    }
+
+    @Test
+    void pairsOfOppositePhasesCarryEqualWeights() {
+        // Derived (orNetworkClosedForms): on OR_n's negative input 0…0 all of |0⟩'s weight sits on
+        // the pair e^{±iθ}, θ = 2 arctan(1/(α√n)); |0⟩ is real, so the complex eigenvectors of
+        // e^{iθ} and e^{−iθ} are conjugate and carry equal weight: 1/2 each. Also the AND path's
+        // θ = π eigenvalues (andNetworkClosedForms) come out as π to rounding.
+        for (int n : new int[] {2, 3, 5}) {
+            Scenario sc = QuantumNets.or(n, null);
+            SpectrumSolver solver = new SpectrumSolver(new SpanProgramUnitary(sc, 1));
+            InputSimulation neg = solve(solver, sc, 0);
+            double theta = 2 * Math.atan(1 / Math.sqrt(n));
+            double[] p = neg.spectrumPhases();
+            double[] w = neg.spectrumWeights();
+            int found = 0;
+            for (int k = 0; k < p.length; k++) {
+                if (Math.abs(p[k] - theta) < 1e-9) {
+                    assertEquals(0.5, w[k], 1e-12, "n " + n);
+                    found++;
+                }
+            }
+            assertEquals(2, found, "two entries, one per eigenvalue of the pair");
+        }
+        Scenario and = QuantumNets.and(4);
+        SpectrumSolver solver = new SpectrumSolver(new SpanProgramUnitary(and, 1));
+        double[] p = solve(solver, and, 0b0111).spectrumPhases();
+        assertEquals(Math.PI, p[p.length - 1], 1e-14);
     }
 
     @Test
