@@ -32,18 +32,22 @@ final class BoundsCommand {
     private BoundsCommand() {}
 
     static String usage() {
-        return "  bounds FILE [--json] | bounds --bench [--seed S]\n"
+        return "  bounds FILE [--json] | bounds --bench [--seed S] [--large] | bounds --doc-table FILE...\n"
                 + "      Lower bounds for the scenario's function: the general adversary ADV+- (an SDP, with its\n"
                 + "      certified interval; up to " + GeneralAdversary.CLI_MAX_VARIABLES
                 + " variables, minutes beyond 6), the positive adversary ADV, and D, C0, C1,\n"
                 + "      s, bs, deg with witnesses; the optimality gap sqrt(W+ W-)/ADV+- and the speed-up D/sqrt(W+ W-).\n"
                 + "      --bench times ADV+- for seeded random 5- and 6-variable functions, ADV and the classical\n"
-                + "      measures for 10 variables.\n";
+                + "      measures for 10 variables; --large adds ADV+- for 7- and 8-variable functions (minutes).\n"
+                + "      --doc-table prints the demo table of docs/bounds.md for the given scenarios.\n";
     }
 
     static int run(List<String> args, PrintStream out, PrintStream err) {
         boolean json = false;
         boolean bench = false;
+        boolean large = false;
+        boolean docTable = false;
+        List<String> files = new ArrayList<>();
         long seed = 1;
         String file = null;
         for (int i = 0; i < args.size(); i++) {
@@ -52,6 +56,10 @@ final class BoundsCommand {
                 json = true;
             } else if (a.equals("--bench")) {
                 bench = true;
+            } else if (a.equals("--large")) {
+                large = true;
+            } else if (a.equals("--doc-table")) {
+                docTable = true;
             } else if (a.equals("--seed")) {
                 if (i + 1 >= args.size()) {
                     throw new Main.UsageException("bounds: --seed needs a whole number");
@@ -63,6 +71,8 @@ final class BoundsCommand {
                 }
             } else if (a.startsWith("-")) {
                 throw new Main.UsageException("bounds: unknown option " + a);
+            } else if (docTable) {
+                files.add(a);
             } else if (file == null) {
                 file = a;
             } else {
@@ -70,7 +80,11 @@ final class BoundsCommand {
             }
         }
         if (bench) {
-            bench(seed, out);
+            bench(seed, large, out);
+            return Main.OK;
+        }
+        if (docTable) {
+            docTable(files, out);
             return Main.OK;
         }
         if (file == null) {
@@ -115,7 +129,32 @@ final class BoundsCommand {
     }
 
     /** Wall-clock seconds of each computation on three seeded random functions (one core). */
-    private static void bench(long seed, PrintStream out) {
+    /**
+     * The demo table of docs/bounds.md, one row per scenario file, from the same computation as
+     * {@code bounds FILE} (so the document cannot drift from the code).
+     */
+    private static void docTable(List<String> files, PrintStream out) {
+        out.println("| scenario | ADV± certified interval | status | ADV certified interval | √(W₊W₋) (optimised) | gap | D | speed-up |");
+        out.println("|---|---|---|---|---|---|---|---|");
+        for (String file : files) {
+            Scenario sc = ScenarioReader.read(Main.readScenarioText(file));
+            BoundsReport r = Bounds.compute(sc, Bounds.Limits.CLI);
+            GeneralAdversary g = r.general();
+            PositiveAdversary p = r.positive();
+            String name = file.replaceAll(".*/", "").replace(".json", "");
+            out.println("| " + name + " (" + sc.variableCount() + " variables) | "
+                    + (g == null ? "—" : "[" + NumberText.sig(g.lower(), 7) + ", " + NumberText.sig(g.upper(), 7) + "]") + " | "
+                    + (g == null ? "—" : describe(g)) + " | "
+                    + (p == null ? "—" : "[" + NumberText.sig(p.lower(), 7) + ", " + NumberText.sig(p.upper(), 7) + "]") + " | "
+                    + NumberText.sig(r.complexity(), 6)
+                    + (r.optimised() == null ? "" : " (" + NumberText.sig(r.optimisedComplexity(), 6) + ")") + " | "
+                    + NumberText.sig(r.optimalityGap(), 5) + " | "
+                    + (r.classical() == null ? "—" : String.valueOf(r.classical().decisionTreeDepth())) + " | "
+                    + NumberText.sig(r.speedup(), 3) + " |");
+        }
+    }
+
+    private static void bench(long seed, boolean large, PrintStream out) {
         out.println("bounds benchmark (seeded random functions on the whole cube; one core; seconds per function)");
         // warm up the JIT on a small case
         GeneralAdversary.compute(randomFunction(4, seed));
@@ -127,6 +166,34 @@ final class BoundsCommand {
                 out.println("  ADV+-  n = " + n + "  seed " + (seed + k) + "  " + Main.pad(NumberText.sig((System.nanoTime() - t) / 1e9, 3) + " s", 10)
                         + "m = " + g.constraintCount() + ", " + g.iterations() + " iterations, ADV+- in ["
                         + NumberText.sig(g.lower(), 9) + ", " + NumberText.sig(g.upper(), 9) + "]");
+            }
+        }
+        if (large) {
+            List<TargetFunction> fs = new ArrayList<>();
+            List<String> names = new ArrayList<>();
+            fs.add(TargetFunction.parse(TargetFunction.names("x", 7), "(x1 & x2) | (x3 & (x4 | x5)) | (x6 & x7)", null));
+            names.add("read-once (x1&x2)|(x3&(x4|x5))|(x6&x7), ADV+- = sqrt 7");
+            fs.add(TargetFunction.parse(TargetFunction.names("x", 7), "x1 ^ (x2 & x3) ^ (x4 | x5) ^ (x6 & !x7)", null));
+            names.add("x1^(x2&x3)^(x4|x5)^(x6&!x7)");
+            fs.add(randomFunction(7, seed));
+            names.add("random, seed " + seed);
+            fs.add(TargetFunction.parse(TargetFunction.names("x", 8), "x1 ^ (x2 & x3) ^ (x4 | x5) ^ maj(x6, x7, x8)", null));
+            names.add("x1^(x2&x3)^(x4|x5)^maj(x6,x7,x8)");
+            fs.add(randomFunction(8, seed));
+            names.add("random, seed " + seed);
+            for (int k = 0; k < fs.size(); k++) {
+                TargetFunction f = fs.get(k);
+                java.lang.management.ThreadMXBean mx = java.lang.management.ManagementFactory.getThreadMXBean();
+                long cpu = mx.getCurrentThreadCpuTime();
+                long t = System.nanoTime();
+                GeneralAdversary g = GeneralAdversary.compute(f);
+                double wall = (System.nanoTime() - t) / 1e9;
+                double used = (mx.getCurrentThreadCpuTime() - cpu) / 1e9;
+                out.println("  ADV+-  n = " + f.variableCount() + "  " + names.get(k) + ": " + NumberText.sig(wall, 3) + " s wall, "
+                        + NumberText.sig(used, 3) + " s CPU; m = " + g.constraintCount() + ", " + g.eigenBlocks() + " of "
+                        + 2 * f.variableCount() + " blocks decomposed, " + g.iterations() + " iterations, " + describe(g)
+                        + "; [" + NumberText.sig(g.lower(), 9) + ", " + NumberText.sig(g.upper(), 9) + "], relative width "
+                        + NumberText.sig(g.gap() / g.upper(), 2));
             }
         }
         for (int k = 0; k < 3; k++) {
