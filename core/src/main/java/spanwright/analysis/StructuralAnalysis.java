@@ -138,6 +138,22 @@ public final class StructuralAnalysis {
      * @throws ScenarioException {@code method} when the scenario has a promise (see {@link #refusal})
      */
     public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes, double seconds) {
+        return run(sc, maxStates, maxNodes, maxDiagramNodes, seconds, true);
+    }
+
+    /**
+     * W₊ and W₋ with their worst inputs and witnesses, without the reduction check (its status is
+     * "not checked"): for callers that ask again and again under new weights, such as the weight
+     * optimiser's working set. Same cost as {@link #run} less the decision diagrams.
+     *
+     * @throws ScenarioException {@code method} when the scenario has a promise (see {@link #refusal})
+     */
+    public static Result worstCases(Scenario sc, long maxStates, long maxNodes) {
+        return run(sc, maxStates, maxNodes, 0, DEFAULT_SECONDS, false);
+    }
+
+    private static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes, double seconds,
+            boolean check) {
         String refusal = refusal(sc);
         if (refusal != null) {
             throw new ScenarioException("method", "$.promise", refusal);
@@ -169,7 +185,8 @@ public final class StructuralAnalysis {
         if (negative == null) {
             negative = branchAndBound(sc, false, maxNodes, seconds, "");
         }
-        Reduction reduction = reduction(sc, maxDiagramNodes);
+        Reduction reduction = check ? reduction(sc, maxDiagramNodes)
+                : new Reduction("not checked", null, List.of(), "not asked for");
         String method = "structure (" + kind + "): " + sc.variableCount() + " variables, 2^" + sc.variableCount()
                 + " inputs not enumerated";
         return new Result(sc, method, positive, negative, reduction);

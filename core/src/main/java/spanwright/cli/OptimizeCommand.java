@@ -18,7 +18,8 @@ import spanwright.optimize.WeightOptimizer;
 
 /**
  * {@code optimize [FILE] [--starts K] [--seed S] [--iterations N] [--seconds T] [--tie literal]
- * [--json] [-o OUT.json]}: better edge weights with a certificate.
+ * [--mode auto|domain|working-set] [--json] [-o OUT.json]}: better edge weights with a certificate
+ * (beyond enumeration, by a working set of worst inputs from the structural engine).
  */
 final class OptimizeCommand {
     private OptimizeCommand() {}
@@ -39,6 +40,9 @@ final class OptimizeCommand {
                     break;
                 case "--tie":
                     options.put("tie", value(args, ++i, a));
+                    break;
+                case "--mode":
+                    options.put("mode", value(args, ++i, a));
                     break;
                 case "--starts":
                 case "--seed":
@@ -84,6 +88,10 @@ final class OptimizeCommand {
         return args.get(i);
     }
 
+    private static String inputText(long mask, spanwright.analysis.InputDetail cert, int n) {
+        return mask >= 0 ? Inputs.format(mask, n) : cert == null ? "—" : cert.input;
+    }
+
     private static String summary(OptimizationResult r, String output) {
         Scenario sc = r.scenario;
         int n = sc.variableCount();
@@ -92,12 +100,18 @@ final class OptimizeCommand {
         sb.append("  status      ").append(r.status.name().toLowerCase().replace('_', ' ')).append(" after ")
                 .append(r.iterations).append(" step(s), ").append(r.evaluations).append(" solves, best of ")
                 .append(r.starts).append(" start(s)\n");
+        if (r.method.equals("working-set")) {
+            sb.append("  method      working set: ").append(r.rounds).append(" round(s) of the structural engine, ")
+                    .append(r.workingSetPositive).append(" worst positive + ").append(r.workingSetNegative)
+                    .append(" worst negative input(s) kept\n");
+            sb.append("  engine      ").append(r.engine).append('\n');
+        }
         sb.append("  bound       sqrt(W+ W-) = ").append(NumberText.sig(r.initialComplexity, 10)).append("  ->  ")
                 .append(NumberText.sig(r.complexity, 10)).append('\n');
         sb.append("  W+ = ").append(NumberText.sig(r.maxResistance, 10)).append(" at ")
-                .append(r.worstPositive < 0 ? "—" : Inputs.format(r.worstPositive, n))
+                .append(inputText(r.worstPositive, r.worstPositiveCertificate, n))
                 .append(",  W- = ").append(NumberText.sig(r.maxCapacitance, 10)).append(" at ")
-                .append(r.worstNegative < 0 ? "—" : Inputs.format(r.worstNegative, n))
+                .append(inputText(r.worstNegative, r.worstNegativeCertificate, n))
                 .append(r.balanced ? "  (balanced)" : "").append('\n');
         sb.append("  weights\n");
         for (Edge e : sc.edges()) {

@@ -280,7 +280,9 @@ public final class JsonFacade {
 
     /**
      * Optimises the edge weights. {@code optionsJson} may be null or
-     * {@code {"starts": 1, "seed": 1, "iterations": 200, "seconds": 60, "tie": "groups"|"literal"}}.
+     * {@code {"starts": 1, "seed": 1, "iterations": 200, "seconds": 60, "tie": "groups"|"literal",
+     * "mode": "auto"|"domain"|"working-set"}} (auto: the working set when the analysis would choose
+     * structure; then iterations count working-set rounds).
      * Answer: {@code {"ok":true,"result":{… as optimize --json …},"scenario":"…scenario text with the
      * new weights…"}}.
      */
@@ -421,6 +423,17 @@ public final class JsonFacade {
                 }
                 continue;
             }
+            if (e.getKey().equals("mode")) {
+                String t = ScenarioReader.string(v, path);
+                spanwright.optimize.OptimizerOptions.Mode mode = spanwright.optimize.OptimizerOptions.Mode.of(t);
+                if (mode == null) {
+                    throw new ScenarioException("option", path, "mode is \"auto\", \"domain\" (every input that can"
+                            + " be worst, enumerable domains only) or \"working-set\" (worst inputs from the structural"
+                            + " engine), got \"" + t + "\"");
+                }
+                opt = opt.withMode(mode);
+                continue;
+            }
             if (!(v instanceof Double) || (Double) v <= 0 || (Double) v != Math.rint((Double) v)) {
                 throw new ScenarioException("option", path, e.getKey() + " must be a whole number > 0");
             }
@@ -431,7 +444,7 @@ public final class JsonFacade {
                 case "iterations": opt = opt.withMaxIterations((int) Math.min(k, 100000)); break;
                 case "seconds": opt = opt.withMaxMillis(k * 1000); break;
                 default:
-                    throw ScenarioReader.unknownOption(e.getKey(), "starts, seed, iterations, seconds, tie");
+                    throw ScenarioReader.unknownOption(e.getKey(), "starts, seed, iterations, seconds, tie, mode");
             }
         }
         return opt;

@@ -142,11 +142,11 @@ public final class ResultJson {
         m.put("complexity", num(r.complexity));
         Map<String, Object> pos = new LinkedHashMap<>();
         pos.put("maxResistance", num(r.maxResistance));
-        pos.put("worst", r.worstPositive < 0 ? Json.NULL : Inputs.format(r.worstPositive, n));
+        pos.put("worst", worst(r.worstPositive, r.worstPositiveCertificate, n));
         m.put("positive", pos);
         Map<String, Object> neg = new LinkedHashMap<>();
         neg.put("maxCapacitance", num(r.maxCapacitance));
-        neg.put("worst", r.worstNegative < 0 ? Json.NULL : Inputs.format(r.worstNegative, n));
+        neg.put("worst", worst(r.worstNegative, r.worstNegativeCertificate, n));
         m.put("negative", neg);
         Map<String, Object> w = new LinkedHashMap<>();
         for (Edge e : sc.edges()) {
@@ -159,11 +159,26 @@ public final class ResultJson {
             trace.add(d);
         }
         m.put("trace", trace);
+        m.put("method", r.method);
+        if (r.method.equals("working-set")) {
+            Map<String, Object> ws = new LinkedHashMap<>();
+            ws.put("rounds", r.rounds);
+            ws.put("positive", r.workingSetPositive);
+            ws.put("negative", r.workingSetNegative);
+            ws.put("engine", r.engine);
+            ws.put("why", "beyond enumeration the weights are optimised against a growing working set of worst inputs"
+                    + " (paths and bonds on host graphs); after each round the structural engine finds the worst input"
+                    + " under the new weights, and the search ends when it finds none worse than the set; the final"
+                    + " W+ and W- are the engine's exact values");
+            m.put("workingSet", ws);
+        }
         Map<String, Object> cand = new LinkedHashMap<>();
-        cand.put("domainSize", r.domainSize);
+        cand.put("domainSize", r.domainSize < 0 ? (Object) Math.pow(2, n) : (Object) r.domainSize);
         cand.put("positive", r.candidatePositive);
         cand.put("negative", r.candidateNegative);
-        cand.put("why", "inputs dominated by a neighbour under Rayleigh monotonicity cannot be worst and are skipped "
+        cand.put("why", r.method.equals("working-set") ? "only the working set's inputs are evaluated during the"
+                + " search; the structural engine searches the whole domain by paths and bonds (or branch and bound)"
+                : "inputs dominated by a neighbour under Rayleigh monotonicity cannot be worst and are skipped "
                 + "during the search; the final numbers come from the full analysis");
         m.put("evaluated", cand);
         Map<String, Object> cert = new LinkedHashMap<>();
@@ -175,6 +190,14 @@ public final class ResultJson {
         m.put("convention", CONVENTION);
         m.put("caution", CAUTION);
         return m;
+    }
+
+    /** An input as text: from its mask, else from its certificate (more than 63 variables), else null. */
+    private static Object worst(long mask, InputDetail cert, int n) {
+        if (mask >= 0) {
+            return Inputs.format(mask, n);
+        }
+        return cert == null ? Json.NULL : cert.input;
     }
 
     /**

@@ -10,6 +10,12 @@ import spanwright.model.Scenario;
  * certificates (optimal flow for the worst positive input, optimal potential for the worst
  * negative input, under the returned weights), the objective trace of the best start (√(W₊W₋)
  * after each accepted outer step; never increasing), counts and a status. Immutable.
+ *
+ * <p>Which optimiser ran is in {@link #method}: {@code "domain"} (every input that can be worst is
+ * evaluated) or {@code "working-set"} (beyond enumeration: {@link #rounds} rounds of the structural
+ * engine, {@link #workingSetPositive} + {@link #workingSetNegative} worst inputs kept; the values are
+ * then the engine's exact W₊ and W₋, {@link #worstPositive}/{@link #worstNegative} are −1 when the
+ * input does not fit a 63-bit mask, and the certificates carry the input strings).
  */
 public final class OptimizationResult {
     /** Why the optimiser stopped. */
@@ -43,12 +49,37 @@ public final class OptimizationResult {
     public final int candidatePositive;
     public final int candidateNegative;
     public final long domainSize;
+    /** "domain" or "working-set". */
+    public final String method;
+    /** Working-set rounds (engine calls after the first); 0 for the whole-domain optimiser. */
+    public final int rounds;
+    /** Worst positive / negative inputs in the working set at the end; 0 for the whole-domain optimiser. */
+    public final int workingSetPositive;
+    public final int workingSetNegative;
+    /** How the engine computed the final W₊ and W₋ (one line each side), or null for the whole domain. */
+    public final String engine;
 
     OptimizationResult(Status status, Scenario scenario, double initialComplexity, double complexity,
             double maxResistance, double maxCapacitance, long worstPositive, long worstNegative,
             InputDetail worstPositiveCertificate, InputDetail worstNegativeCertificate, List<Double> trace,
             int iterations, long evaluations, int starts, int bestStart, boolean balanced,
             int candidatePositive, int candidateNegative, long domainSize) {
+        this(status, scenario, initialComplexity, complexity, maxResistance, maxCapacitance, worstPositive,
+                worstNegative, worstPositiveCertificate, worstNegativeCertificate, trace, iterations, evaluations, starts,
+                bestStart, balanced, candidatePositive, candidateNegative, domainSize, "domain", 0, 0, 0, null);
+    }
+
+    OptimizationResult(Status status, Scenario scenario, double initialComplexity, double complexity,
+            double maxResistance, double maxCapacitance, long worstPositive, long worstNegative,
+            InputDetail worstPositiveCertificate, InputDetail worstNegativeCertificate, List<Double> trace,
+            int iterations, long evaluations, int starts, int bestStart, boolean balanced,
+            int candidatePositive, int candidateNegative, long domainSize, String method, int rounds,
+            int workingSetPositive, int workingSetNegative, String engine) {
+        this.method = method;
+        this.rounds = rounds;
+        this.workingSetPositive = workingSetPositive;
+        this.workingSetNegative = workingSetNegative;
+        this.engine = engine;
         this.status = status;
         this.scenario = scenario;
         this.initialComplexity = initialComplexity;

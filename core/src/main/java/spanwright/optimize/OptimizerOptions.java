@@ -10,14 +10,48 @@ public final class OptimizerOptions {
         LITERAL
     }
 
+    /** Which optimiser runs. */
+    public enum Mode {
+        /** the working set when {@link spanwright.analysis.Analysis#choose} picks structure, else the whole domain */
+        AUTO("auto"),
+        /** every input that can be worst is evaluated at every step (enumerable domains only) */
+        DOMAIN("domain"),
+        /** a growing working set of worst inputs found by the structural engine */
+        WORKING_SET("working-set");
+
+        /** The name on the command line and in JSON. */
+        public final String word;
+
+        Mode(String word) {
+            this.word = word;
+        }
+
+        /** The mode named {@code word}, or null. */
+        public static Mode of(String word) {
+            for (Mode m : values()) {
+                if (m.word.equals(word)) {
+                    return m;
+                }
+            }
+            return null;
+        }
+    }
+
     final int starts;
     final long seed;
     final int maxIterations;
     final long maxMillis;
     final double tolerance;
     final Tie tie;
+    final Mode mode;
 
     private OptimizerOptions(int starts, long seed, int maxIterations, long maxMillis, double tolerance, Tie tie) {
+        this(starts, seed, maxIterations, maxMillis, tolerance, tie, Mode.AUTO);
+    }
+
+    private OptimizerOptions(int starts, long seed, int maxIterations, long maxMillis, double tolerance, Tie tie,
+            Mode mode) {
+        this.mode = mode;
         this.starts = starts;
         this.seed = seed;
         this.maxIterations = maxIterations;
@@ -33,27 +67,36 @@ public final class OptimizerOptions {
 
     /** Number of starts: the scenario's weights, then random log-normal perturbations of them. */
     public OptimizerOptions withStarts(int k) {
-        return new OptimizerOptions(Math.max(1, k), seed, maxIterations, maxMillis, tolerance, tie);
+        return new OptimizerOptions(Math.max(1, k), seed, maxIterations, maxMillis, tolerance, tie, mode);
     }
 
     public OptimizerOptions withSeed(long s) {
-        return new OptimizerOptions(starts, s, maxIterations, maxMillis, tolerance, tie);
+        return new OptimizerOptions(starts, s, maxIterations, maxMillis, tolerance, tie, mode);
     }
 
     public OptimizerOptions withMaxIterations(int it) {
-        return new OptimizerOptions(starts, seed, Math.max(1, it), maxMillis, tolerance, tie);
+        return new OptimizerOptions(starts, seed, Math.max(1, it), maxMillis, tolerance, tie, mode);
     }
 
     public OptimizerOptions withMaxMillis(long ms) {
-        return new OptimizerOptions(starts, seed, maxIterations, Math.max(1, ms), tolerance, tie);
+        return new OptimizerOptions(starts, seed, maxIterations, Math.max(1, ms), tolerance, tie, mode);
     }
 
     /** Stop when one outer step lowers √(W₊W₋) by less than this fraction. */
     public OptimizerOptions withTolerance(double tol) {
-        return new OptimizerOptions(starts, seed, maxIterations, maxMillis, tol, tie);
+        return new OptimizerOptions(starts, seed, maxIterations, maxMillis, tol, tie, mode);
     }
 
     public OptimizerOptions withTie(Tie t) {
-        return new OptimizerOptions(starts, seed, maxIterations, maxMillis, tolerance, t);
+        return new OptimizerOptions(starts, seed, maxIterations, maxMillis, tolerance, t, mode);
+    }
+
+    /** Which optimiser runs (default {@link Mode#AUTO}). */
+    public OptimizerOptions withMode(Mode m) {
+        return new OptimizerOptions(starts, seed, maxIterations, maxMillis, tolerance, tie, m);
+    }
+
+    public Mode mode() {
+        return mode;
     }
 }

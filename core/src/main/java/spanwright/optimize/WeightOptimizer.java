@@ -1,10 +1,8 @@
 package spanwright.optimize;
 
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
-import java.util.Map;
 import java.util.Set;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
@@ -39,6 +37,10 @@ import spanwright.model.SeededRandom;
  * Reichardt, ESA 2012, arXiv:1203.2603, and Jarret, Jeffery, Kimmel &amp; Piedrafita, ESA 2018,
  * arXiv:1804.10591. Cost per outer step: one solve per candidate input per line-search trial, plus
  * the surrogate solve.
+ *
+ * <p>Beyond enumeration ({@link Analysis#choose} picks structure, or {@link OptimizerOptions.Mode#WORKING_SET})
+ * the same entry points run {@link WorkingSetSearch}: the same steps on a growing working set of
+ * worst inputs that the structural engine supplies; one outer step is then one working-set round.
  */
 public final class WeightOptimizer {
     /** Most inputs added to each side's active set per outer step. */
@@ -88,7 +90,25 @@ public final class WeightOptimizer {
 
     /** Starts a stepwise optimisation (for callers that show progress): see {@link Run}. */
     public static Run start(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
+        if (candidates == null && usesWorkingSet(scenario, options)) {
+            return new Run(new WorkingSetSearch(scenario, options));
+        }
         return new Run(scenario, candidates, options);
+    }
+
+    /**
+     * Whether {@link #start} (without caller candidates) runs the working-set optimiser: when asked
+     * to, or in {@link OptimizerOptions.Mode#AUTO} when {@link Analysis#choose} picks structure.
+     */
+    public static boolean usesWorkingSet(Scenario scenario, OptimizerOptions options) {
+        switch (options.mode) {
+            case WORKING_SET:
+                return true;
+            case DOMAIN:
+                return false;
+            default:
+                return Analysis.choose(scenario, Analysis.Method.AUTO).method() == Analysis.Method.STRUCTURE;
+        }
     }
 
     /**
@@ -129,58 +149,38 @@ public final class WeightOptimizer {
         private Set<Integer> activeN;
         private boolean inStart;
         private OptimizationResult.Status status;
+        /** The working-set optimiser this run delegates to, or null for the whole domain. */
+        private final WorkingSetSearch ws;
+
+        Run(WorkingSetSearch ws) {
+            this.ws = ws;
+            this.scenario = null;
+            this.options = null;
+            this.deadline = 0;
+            this.ev = null;
+            this.group = null;
+            this.g = 0;
+            this.free = null;
+            this.u0 = null;
+            this.anyLocked = false;
+            this.initial = ws.initial;
+            this.solver = null;
+            this.rnd = null;
+        }
 
         Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
+            this.ws = null;
             this.scenario = scenario;
             this.options = options;
             this.deadline = System.currentTimeMillis() + options.maxMillis;
             this.ev = candidates == null ? new WorstCaseEvaluator(scenario) : new WorstCaseEvaluator(scenario, candidates);
-            int m = ev.keptEdge.length;
-            // weight groups over kept edges
-            Map<String, Integer> groupOf = new HashMap<>();
-            group = new int[m];
-            List<Boolean> lockedList = new ArrayList<>();
-            for (int k = 0; k < m; k++) {
-                Edge e = scenario.edges().get(ev.keptEdge[k]);
-                String key;
-                if (e.locked()) {
-                    key = "locked#" + k;
-                } else if (e.group() != null) {
-                    key = "group:" + e.group();
-                } else if (options.tie == OptimizerOptions.Tie.LITERAL) {
-                    key = "literal:" + e.when();
-                } else {
-                    key = "edge#" + k;
-                }
-                Integer gi = groupOf.get(key);
-                if (gi == null) {
-                    gi = groupOf.size();
-                    groupOf.put(key, gi);
-                    lockedList.add(e.locked());
-                }
-                group[k] = gi;
-            }
-            g = groupOf.size();
-            free = new boolean[g];
-            u0 = new double[g];
-            int[] members = new int[g];
-            boolean locked = false;
-            for (int q = 0; q < g; q++) {
-                free[q] = !lockedList.get(q);
-                locked |= !free[q];
-            }
-            anyLocked = locked;
-            for (int k = 0; k < m; k++) {
-                u0[group[k]] += Math.log(scenario.edges().get(ev.keptEdge[k]).weight());
-                members[group[k]]++;
-            }
-            int freeCount = 0;
-            for (int q = 0; q < g; q++) {
-                u0[q] /= members[q]; // geometric mean of the members' weights
-                if (free[q]) {
-                    freeCount++;
-                }
-            }
+            WeightGroups wg = new WeightGroups(scenario, ev.keptEdge, options.tie);
+            group = wg.group;
+            g = wg.count;
+            free = wg.free;
+            u0 = wg.u0;
+            anyLocked = wg.anyLocked;
+            int freeCount = wg.freeCount;
             initial = Math.sqrt(ev.evaluate(expand(u0, group)));
             bestU = u0;
             solver = new SurrogateSolver(g, free, u0);
@@ -199,30 +199,48 @@ public final class WeightOptimizer {
 
         /** √(W₊W₋) at the current point of the start in progress (or the best so far). */
         public double currentComplexity() {
+            if (ws != null) {
+                return ws.currentComplexity();
+            }
             return inStart ? Math.sqrt(f) : Math.sqrt(bestF);
         }
 
         /** Index of the start in progress (0 = the given weights). */
         public int currentStart() {
+            if (ws != null) {
+                return ws.currentStart();
+            }
             return Math.max(0, start);
         }
 
         /** Outer steps taken in the start in progress. */
         public int currentIteration() {
+            if (ws != null) {
+                return ws.currentRound();
+            }
             return iteration;
         }
 
         /** The objective trace of the start in progress (a copy). */
         public List<Double> currentTrace() {
+            if (ws != null) {
+                return ws.currentTrace();
+            }
             return trace == null ? List.of(initial) : new ArrayList<>(trace);
         }
 
         /** Ends the search at the best point found so far (status cancelled). */
         public void cancel() {
+            if (ws != null) {
+                ws.cancel();
+            }
             cancelled = true;
         }
 
         public boolean done() {
+            if (ws != null) {
+                return ws.done();
+            }
             return finished;
         }
 
@@ -233,6 +251,14 @@ public final class WeightOptimizer {
          */
         public boolean step() {
             accepted = false;
+            if (ws != null) {
+                boolean end = ws.step();
+                accepted = !end;
+                f = Math.pow(ws.currentComplexity(), 2);
+                start = ws.currentStart();
+                iteration = ws.currentRound();
+                return end;
+            }
             if (finished) {
                 return true;
             }
@@ -344,6 +370,9 @@ public final class WeightOptimizer {
 
         /** The result; requires {@link #done()}. Runs the full analysis of the final weights. */
         public OptimizationResult result() {
+            if (ws != null) {
+                return ws.result();
+            }
             if (!finished) {
                 throw new IllegalStateException("optimisation not finished");
             }
