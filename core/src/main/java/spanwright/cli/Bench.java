@@ -29,6 +29,9 @@ final class Bench {
         if (!args.isEmpty() && args.get(0).equals("optimize")) {
             return optimizer(args.subList(1, args.size()), out);
         }
+        if (!args.isEmpty() && args.get(0).equals("optimize-structure")) {
+            return BenchStructure.optimize(args.subList(1, args.size()), out);
+        }
         if (!args.isEmpty() && args.get(0).equals("structure")) {
             return BenchStructure.run(args.subList(1, args.size()), out);
         }
