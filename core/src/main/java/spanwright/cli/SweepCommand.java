@@ -66,7 +66,7 @@ final class SweepCommand {
     }
 
     static String usage() {
-        return "  sweep FAMILY|FILE.json [--n SIZES] [family options] [--method auto|every|undominated|orbits]\n"
+        return "  sweep FAMILY|FILE.json [--n SIZES] [family options] [--method auto|every|undominated|orbits|structure]\n"
                 + "        [--iterations N] [--seconds T] [--starts K] [--seed S] [--no-bounds] [--bounds-max-vars N]\n"
                 + "        [--max-inputs N] [--fit-from N] [--fit-last K] [--threads K] [-o OUT.json] [--csv OUT.csv]\n"
                 + "        [--latex OUT.tex] [--results-only] [--json] [--quiet]\n"
@@ -132,7 +132,7 @@ final class SweepCommand {
                     String m = value(args, ++i, x);
                     SweepOptions.Method me = SweepOptions.Method.of(m);
                     if (me == null) {
-                        throw new Main.UsageException("sweep: --method is auto, every, undominated or orbits, got " + m);
+                        throw new Main.UsageException("sweep: --method is auto, every, undominated, orbits or structure, got " + m);
                     }
                     a.options = a.options.withMethod(me);
                     a.repeat.add(x);

@@ -30,17 +30,22 @@ import spanwright.model.Scenario;
  *   <li>{@code majority-tree}: recursive majority of three of depth d, each majority written as
  *       (A ∧ B) ∨ (A ∧ C) ∨ (B ∧ C) of its three sub-trees; n = 3^d.</li>
  *   <li>{@code grid}: st-connectivity on the k × k grid host graph, s and t opposite corners.</li>
+ *   <li>{@code complete}: st-connectivity on K_n (s = v1, t = vn).</li>
+ *   <li>{@code hypercube}: st-connectivity on the d-cube, s = 0…0 and t = 1…1.</li>
  *   <li>{@code path-one-missing}: a path of n edges with the promise "at most one edge missing".</li>
  *   <li>{@code power}: composition powers F^(d) of a given scenario F (option {@code scenario}):
  *       F^(1) = F, F^(d) = F with each edge replaced by a copy of F^(d−1).</li>
  * </ul>
  * OR, AND, the trees and the majority tree come with the symmetry of their formula's tree
- * ({@link VariableSymmetry}); the others are swept by brute force or Rayleigh dominance.
+ * ({@link VariableSymmetry}); the others are swept by brute force or Rayleigh dominance, and
+ * the host-graph families beyond enumeration by structure. The grid, complete and hypercube
+ * families tie their weights by the edge orbits of graph automorphisms fixing {s, t}
+ * ({@link EdgeOrbits}: no loss for the optimum, derived there).
  */
 public final class BuiltInFamilies {
     /** The names of the built-in families, in the order they are listed. */
     public static final List<String> NAMES = List.of("or", "and", "parity", "threshold", "and-or-tree",
-            "majority-tree", "grid", "path-one-missing", "power");
+            "majority-tree", "grid", "complete", "hypercube", "path-one-missing", "power");
 
     private BuiltInFamilies() {}
 
@@ -70,6 +75,8 @@ public final class BuiltInFamilies {
             case "parity":
             case "majority-tree":
             case "grid":
+            case "complete":
+            case "hypercube":
             case "path-one-missing":
                 f = new Simple(id);
                 break;
@@ -197,13 +204,15 @@ public final class BuiltInFamilies {
                 case "parity": return "PARITY_n as an ordered decision diagram";
                 case "majority-tree": return "recursive majority of three, depth d";
                 case "grid": return "st-connectivity on the k×k grid";
+                case "complete": return "st-connectivity on the complete graph K_n";
+                case "hypercube": return "st-connectivity on the d-cube, opposite corners";
                 default: return "path of n edges, at most one edge missing";
             }
         }
 
         @Override
         public String parameterName() {
-            return id.equals("majority-tree") ? "d" : id.equals("grid") ? "k" : "n";
+            return id.equals("majority-tree") || id.equals("hypercube") ? "d" : id.equals("grid") ? "k" : "n";
         }
 
         @Override
@@ -211,6 +220,8 @@ public final class BuiltInFamilies {
             switch (id) {
                 case "majority-tree": return "depth (3^d variables)";
                 case "grid": return "side of the grid (2k(k−1) edge variables)";
+                case "complete": return "number of vertices (n(n−1)/2 edge variables)";
+                case "hypercube": return "dimension (d·2^(d−1) edge variables)";
                 case "path-one-missing": return "length of the path (edges = variables)";
                 default: return "number of variables";
             }
@@ -222,6 +233,8 @@ public final class BuiltInFamilies {
                 case "parity": return "2..12";
                 case "majority-tree": return "1..3";
                 case "grid": return "2..4";
+                case "complete": return "3..12";
+                case "hypercube": return "1..4";
                 case "path-one-missing": return "2..20";
                 default: return "2..20";
             }
@@ -229,7 +242,7 @@ public final class BuiltInFamilies {
 
         @Override
         public int minimumSize() {
-            return id.equals("grid") ? 2 : 1;
+            return id.equals("grid") || id.equals("complete") ? 2 : 1;
         }
 
         @Override
@@ -280,8 +293,19 @@ public final class BuiltInFamilies {
                 }
                 case "grid": {
                     Built b = HostGraphBuilder.family("grid", new int[] {size, size}, null, null, 1, -1);
-                    return new FamilyInstance(size, b.scenario(), "host-graph builder, grid " + size + "x" + size,
-                            b.stats(), null);
+                    return tied(size, b, "host-graph builder, grid " + size + "x" + size, EdgeOrbits.grid(size));
+                }
+                case "complete": {
+                    Built b = HostGraphBuilder.family("complete", new int[] {size}, null, null, 1, -1);
+                    return tied(size, b, "host-graph builder, complete " + size, EdgeOrbits.complete(size));
+                }
+                case "hypercube": {
+                    Built b = HostGraphBuilder.family("hypercube", new int[] {size}, null, null, 1, -1);
+                    String[] bits = new String[b.scenario().vertexCount()];
+                    for (int i = 0; i < bits.length; i++) {
+                        bits[i] = b.scenario().vertices().get(i).id().substring(1); // "h0101" → "0101"
+                    }
+                    return tied(size, b, "host-graph builder, hypercube " + size, EdgeOrbits.hypercube(size, bits));
                 }
                 default: {
                     Built b = HostGraphBuilder.family("path", new int[] {size + 1}, null, null, 1, 1);
@@ -290,6 +314,16 @@ public final class BuiltInFamilies {
                 }
             }
         }
+    }
+
+    /** A host-graph instance with weights tied by edge orbit (untied when a generator fails its check). */
+    private static FamilyInstance tied(int size, Built b, String construction, List<int[]> generators) {
+        Scenario t = EdgeOrbits.tie(b.scenario(), generators);
+        if (t == null) {
+            return new FamilyInstance(size, b.scenario(), construction, b.stats(), null);
+        }
+        return new FamilyInstance(size, t, construction + "; weights tied by the " + EdgeOrbits.orbitCount(t)
+                + " edge orbit(s) of automorphisms fixing {s, t} (no loss: convex and invariant)", b.stats(), null);
     }
 
     /** maj of three copies: (A & B) | (A & C) | (B & C), with fresh leaves for every copy of a subtree. */

@@ -231,6 +231,7 @@ public final class SweepDocument {
         sorted.sort((a, b) -> Integer.compare(((Number) a.get("size")).intValue(), ((Number) b.get("size")).intValue()));
         m.put("rows", new ArrayList<Object>(sorted));
         m.put("fits", SweepReport.fits(sorted, fitFrom, fitLast));
+        m.put("fitsBySize", SweepReport.fits(sorted, fitFrom, fitLast, "size"));
         if (run != null) {
             m.put("run", run);
         }
@@ -396,7 +397,7 @@ public final class SweepDocument {
                 case "method": {
                     SweepOptions.Method me = SweepOptions.Method.of(String.valueOf(v));
                     if (me == null) {
-                        throw new ScenarioException("option", p, "method is auto, every, undominated or orbits");
+                        throw new ScenarioException("option", p, "method is auto, every, undominated, orbits or structure");
                     }
                     o = o.withMethod(me);
                     break;

@@ -15,15 +15,20 @@ public final class SweepOptions {
     /** How the inputs of a size are chosen. */
     public enum Method {
         /** the first that applies of: orbits (symmetric, more than 2^16 inputs), every input (at most
-         *  2^16), undominated (some single-polarity variable, at most 2^26), every input (at most
-         *  {@link #maxInputs}) */
+         *  2^16), structure (a host graph, one positive literal per edge, no promise, more than
+         *  {@link spanwright.analysis.Analysis#AUTO_ENUMERATION_VARIABLES} variables), undominated (some
+         *  single-polarity variable, at most 2^26), every input (at most {@link #maxInputs}), structure
+         *  (no promise) */
         AUTO("auto"),
         /** every input of the domain (histograms of all values; shardable by input ranges) */
         EVERY("every"),
         /** the inputs Rayleigh dominance cannot rule out (connectivity tested on every input) */
         UNDOMINATED("undominated"),
         /** one input per symmetry orbit, then Rayleigh dominance */
-        ORBITS("orbits");
+        ORBITS("orbits"),
+        /** no input listed: exact W₊ and W₋ by the structural engine (heaviest paths and bonds on host
+         *  graphs, branch and bound otherwise); the optimiser works on a working set of worst inputs */
+        STRUCTURE("structure");
 
         public final String key;
 

@@ -35,6 +35,16 @@ public final class SweepReport {
      * n ≥ {@code fromN} (0 for no lower limit) and then the last {@code last} of those (0 for all).
      */
     public static Map<String, Object> fits(List<Map<String, Object>> rows, int fromN, int last) {
+        return fits(rows, fromN, last, "variables");
+    }
+
+    /**
+     * The same fits over the same tail, against {@code against}: {@code "variables"} (as
+     * {@link #fits(List, int, int)}) or {@code "size"}, the family parameter (K_n's n, a grid's side),
+     * the variable in which graph-problem bounds are stated; keys {@code fromSize}, {@code toSize}.
+     */
+    public static Map<String, Object> fits(List<Map<String, Object>> rows, int fromN, int last, String against) {
+        boolean bySize = against.equals("size");
         List<Map<String, Object>> tail = new ArrayList<>();
         for (Map<String, Object> r : rows) {
             Object n = r.get("variables");
@@ -46,7 +56,7 @@ public final class SweepReport {
             tail = tail.subList(tail.size() - last, tail.size());
         }
         Map<String, Object> out = new LinkedHashMap<>();
-        out.put("against", "variables");
+        out.put("against", bySize ? "size" : "variables");
         Map<String, Object> t = new LinkedHashMap<>();
         t.put("fromVariables", fromN);
         t.put("last", last);
@@ -59,7 +69,7 @@ public final class SweepReport {
             for (Map<String, Object> r : tail) {
                 Object y = at(r, s[2]);
                 if (y instanceof Number) {
-                    xs.add(((Number) r.get("variables")).doubleValue());
+                    xs.add(((Number) r.get(bySize ? "size" : "variables")).doubleValue());
                     ys.add(((Number) y).doubleValue());
                 }
             }
@@ -73,8 +83,8 @@ public final class SweepReport {
             m.put("standardError", f.standardError);
             m.put("prefactor", f.prefactor);
             m.put("points", f.points);
-            m.put("fromVariables", f.fromX);
-            m.put("toVariables", f.toX);
+            m.put(bySize ? "fromSize" : "fromVariables", f.fromX);
+            m.put(bySize ? "toSize" : "toVariables", f.toX);
             if (f.missing != null) {
                 m.put("missing", f.missing);
             }

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Map;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.CandidateInputs;
+import spanwright.analysis.StructuralAnalysis;
 import spanwright.analysis.Summary;
 import spanwright.analysis.VariableSymmetry;
 import spanwright.domain.InputDomain;
@@ -142,15 +143,22 @@ public final class SweepSize {
         boolean orbitsFit = symmetry != null && symmetry.orbitCount() <= VariableSymmetry.MAX_ORBITS;
         SweepOptions.Method m = options.method;
         String why = null;
+        boolean structureFits = StructuralAnalysis.refusal(sc) == null && sc.promise().kind() == Promise.Kind.NONE;
+        boolean hostBeyond = structureFits && StructuralAnalysis.isHostForm(sc)
+                && n > Analysis.AUTO_ENUMERATION_VARIABLES;
         if (m == SweepOptions.Method.AUTO) {
             if (orbitsFit && domainSize > Math.pow(2, SweepOptions.EVERY_INPUT_BITS)) {
                 m = SweepOptions.Method.ORBITS;
             } else if (domainSize <= Math.pow(2, SweepOptions.EVERY_INPUT_BITS)) {
                 m = SweepOptions.Method.EVERY;
+            } else if (hostBeyond) {
+                m = SweepOptions.Method.STRUCTURE;
             } else if (unate && domainSize <= SweepOptions.UNDOMINATED_MAX_INPUTS) {
                 m = SweepOptions.Method.UNDOMINATED;
             } else if (domainSize <= options.maxInputs) {
                 m = SweepOptions.Method.EVERY;
+            } else if (structureFits) {
+                m = SweepOptions.Method.STRUCTURE;
             } else {
                 why = power(domainSize) + " inputs: more than the every-input limit of " + power(options.maxInputs)
                         + (symmetry == null ? ", and no symmetry is known that would reduce them" : "")
@@ -162,6 +170,8 @@ public final class SweepSize {
         } else if (m == SweepOptions.Method.UNDOMINATED && domainSize > SweepOptions.UNDOMINATED_MAX_INPUTS) {
             why = power(domainSize) + " inputs: Rayleigh dominance tests every input's connectivity, at most "
                     + power(SweepOptions.UNDOMINATED_MAX_INPUTS);
+        } else if (m == SweepOptions.Method.STRUCTURE && !structureFits) {
+            why = "the structural engine does not run under a promise in a sweep (use every, undominated or orbits)";
         } else if (m == SweepOptions.Method.ORBITS && !orbitsFit) {
             why = symmetry == null ? (sym == null ? "the family declares no symmetry" : "the declared symmetry "
                     + metadata.get("symmetryCheck")) : "more than " + VariableSymmetry.MAX_ORBITS + " orbits";
@@ -222,7 +232,24 @@ public final class SweepSize {
                 return;
             }
         }
-        if (candidates != null) {
+        if (method == SweepOptions.Method.STRUCTURE) {
+            StructuralAnalysis.Reduction red = StructuralAnalysis.reduction(sc, StructuralAnalysis.DEFAULT_DIAGRAM_NODES);
+            Map<String, Object> rm = new LinkedHashMap<>();
+            rm.put("checked", red.correct() != null);
+            rm.put("correct", red.correct());
+            rm.put("counterexampleCount", red.counterexamples() == null ? null : (Object) count(red.counterexamples()));
+            rm.put("counterexamples", new ArrayList<Object>(red.firstCounterexamples()));
+            rm.put("how", red.method());
+            metadata.put("reduction", rm);
+            metadata.put("explanation", "No input was listed: the structural engine computes W+ and W- exactly. On a"
+                    + " host graph (one positive literal per edge) Rayleigh monotonicity puts W+ on a minimal positive"
+                    + " input, a simple s-t path (R = sum of its weights), and W- on a maximal negative input, all"
+                    + " edges but an s-t bond (C = sum of 1/w over the bond); the heaviest path and bond come from"
+                    + " frontier search or dynamic programming over vertex subsets. Other instances: branch and bound"
+                    + " with Rayleigh bounds. The reduction is checked by decision diagrams (or holds by"
+                    + " construction).");
+            step("check", t0, 0);
+        } else if (candidates != null) {
             metadata.put("explanation", candidates.explanation());
             Map<String, Object> in = new LinkedHashMap<>();
             in.put("tested", candidates.tested());
@@ -243,6 +270,11 @@ public final class SweepSize {
                     + " (connectivity, f and the witness size), so the maxima are exact.");
         }
         optimise();
+        if (method == SweepOptions.Method.STRUCTURE) {
+            long ts = System.nanoTime();
+            structural();
+            step("structure", ts, 0);
+        }
         metadata.put("fingerprint", Long.toHexString(Summary.fingerprint(scenario)));
         long tb = System.nanoTime();
         metadata.put("bounds", LowerBounds.compute(scenario, options));
@@ -252,7 +284,8 @@ public final class SweepSize {
     private void optimise() {
         Map<String, Object> o = new LinkedHashMap<>();
         metadata.put("optimizer", o);
-        long units = candidates == null ? (long) domainSize : candidates.size();
+        long units = method == SweepOptions.Method.STRUCTURE ? 0 : candidates == null ? (long) domainSize
+                : candidates.size();
         if (options.optimizeIterations == 0) {
             o.put("status", "skipped");
             o.put("reason", "no optimiser budget (0 iterations): the builder's weights are kept");
@@ -270,7 +303,9 @@ public final class SweepSize {
             sc = tieByOrbit(sc);
         }
         OptimizerOptions opt = OptimizerOptions.defaults().withMaxIterations(options.optimizeIterations)
-                .withMaxMillis(options.optimizeMillis).withStarts(options.starts).withSeed(options.seed);
+                .withMaxMillis(options.optimizeMillis).withStarts(options.starts).withSeed(options.seed)
+                .withMode(method == SweepOptions.Method.STRUCTURE ? OptimizerOptions.Mode.WORKING_SET
+                        : OptimizerOptions.Mode.DOMAIN);
         long deadline = System.currentTimeMillis() + options.optimizeMillis;
         OptimizationResult r = WeightOptimizer.optimize(sc, candidates, opt, null);
         boolean timeUp = System.currentTimeMillis() >= deadline
@@ -282,6 +317,11 @@ public final class SweepSize {
         o.put("initialComplexity", r.initialComplexity);
         o.put("complexity", r.complexity);
         o.put("weightGroups", groups(sc));
+        if (r.method.equals("working-set")) {
+            o.put("mode", "working set");
+            o.put("rounds", r.rounds);
+            o.put("workingSet", r.workingSetPositive + r.workingSetNegative);
+        }
         if (method == SweepOptions.Method.ORBITS) {
             o.put("tied", "weights tied by edge orbit, so that they stay invariant under the symmetry (the bound is"
                     + " valid; an untied optimum could only be lower)");
@@ -291,6 +331,33 @@ public final class SweepSize {
         }
         scenario = r.scenario;
         step("optimize", t0, 16L * units + 64L * sc.edges().size());
+    }
+
+    /** Exact W₊, W₋ of the final weights by the structural engine, into the metadata (key {@code structure}). */
+    private void structural() {
+        StructuralAnalysis.Result r = StructuralAnalysis.worstCases(scenario, StructuralAnalysis.DEFAULT_STATES,
+                StructuralAnalysis.DEFAULT_NODES);
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("exact", r.exact());
+        m.put("positive", side(r.positive()));
+        m.put("negative", side(r.negative()));
+        m.put("complexity", Double.isNaN(r.complexity()) ? null : (Object) r.complexity());
+        metadata.put("structure", m);
+    }
+
+    private static Map<String, Object> side(StructuralAnalysis.Side s) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("count", s.extremeInputs() == null ? null : (Object) count(s.extremeInputs()));
+        m.put("value", Double.isNaN(s.value()) ? null : (Object) s.value());
+        m.put("upper", Double.isNaN(s.upper()) ? null : (Object) s.upper());
+        m.put("worst", s.worst() == null ? null : s.worst().input);
+        m.put("how", s.method());
+        return m;
+    }
+
+    /** A count as a long when it fits, else as a double. */
+    private static Object count(java.math.BigInteger b) {
+        return b.bitLength() < 63 ? (Object) b.longValue() : (Object) b.doubleValue();
     }
 
     /** Number of weight groups the optimiser saw (group keys, or one per edge). */
@@ -328,16 +395,22 @@ public final class SweepSize {
 
     /** Number of inputs to evaluate after {@link #prepare} (0 when skipped or failed). */
     public long units() {
-        if (status != Status.OK || !prepared) {
+        if (status != Status.OK || !prepared || method == SweepOptions.Method.STRUCTURE) {
             return 0;
         }
         return candidates == null ? (long) domainSize : candidates.size();
     }
 
-    /** Evaluates units [from, to) with the final weights. Requires {@link #prepare}. */
+    /**
+     * Evaluates units [from, to) with the final weights. Requires {@link #prepare}. Null for the
+     * structural method (its results are in the metadata; it has no units).
+     */
     public Summary evaluate(long from, long to) {
         if (!prepared || status != Status.OK) {
             throw new IllegalStateException("size " + size + " is not prepared");
+        }
+        if (method == SweepOptions.Method.STRUCTURE) {
+            return null;
         }
         return candidates == null ? Analysis.summarize(scenario, from, to)
                 : Analysis.summarize(scenario, candidates, (int) from, (int) to);
@@ -394,6 +467,25 @@ public final class SweepSize {
             }
         }
         if (summary == null) {
+            Object st = metadata.get("structure");
+            if (st instanceof Map) { // the structural method: exact values without listed inputs
+                Map<?, ?> sm = (Map<?, ?>) st;
+                Map<?, ?> sp = (Map<?, ?>) sm.get("positive");
+                Map<?, ?> sn = (Map<?, ?>) sm.get("negative");
+                row.put("evaluated", 0L);
+                Map<String, Object> pos = new LinkedHashMap<>();
+                pos.put("count", sp.get("count"));
+                pos.put("maxResistance", sp.get("value"));
+                pos.put("worst", sp.get("worst"));
+                row.put("positive", pos);
+                Map<String, Object> neg = new LinkedHashMap<>();
+                neg.put("count", sn.get("count"));
+                neg.put("maxCapacitance", sn.get("value"));
+                neg.put("worst", sn.get("worst"));
+                row.put("negative", neg);
+                row.put("complexity", sm.get("complexity"));
+                return row;
+            }
             row.put("complexity", null);
             return row;
         }

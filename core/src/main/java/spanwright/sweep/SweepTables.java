@@ -212,6 +212,31 @@ public final class SweepTables {
                 growth(sb, (Map<String, Object>) f.get("growth"));
             }
         }
+        Map<String, Object> bySize = (Map<String, Object>) result.get("fitsBySize");
+        boolean sizeDiffers = false;
+        for (Object o : (List<Object>) result.get("rows")) {
+            Map<String, Object> r = (Map<String, Object>) o;
+            sizeDiffers |= r.get("variables") instanceof Number && r.get("size") instanceof Number
+                    && ((Number) r.get("variables")).doubleValue() != ((Number) r.get("size")).doubleValue();
+        }
+        if (bySize != null && sizeDiffers) {
+            Object name = result.get("parameter") instanceof Map ? ((Map<String, Object>) result.get("parameter"))
+                    .get("name") : "size";
+            Map<String, Object> series = (Map<String, Object>) bySize.get("series");
+            for (String key : new String[] {"complexity", "initialComplexity"}) {
+                Map<String, Object> f = (Map<String, Object>) series.get(key);
+                if (f == null || f.get("missing") != null) {
+                    continue;
+                }
+                Object se = f.get("standardError");
+                sb.append("  in the parameter ").append(name).append(": ").append(pad(String.valueOf(f.get("what")), 40,
+                        false)).append(sig(f.get("exponent"), 4))
+                        .append(se instanceof Number && !Double.isNaN(((Number) se).doubleValue()) ? " ± " + sig(se, 2)
+                                : " (two points: no error estimate)")
+                        .append("  over ").append(name).append(" = ").append(full(f.get("fromSize"))).append(" … ")
+                        .append(full(f.get("toSize"))).append('\n');
+            }
+        }
         sb.append("caution: ").append(result.get("caution")).append(".\n");
         sb.append("convention: ").append(result.get("convention")).append(".\n");
         return sb.toString();
