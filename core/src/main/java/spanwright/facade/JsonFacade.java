@@ -305,9 +305,11 @@ public final class JsonFacade {
 
     /**
      * Stepwise optimisation, for a page that draws the trace as it grows. {@code optimizeStart(
-     * scenario, options)} → {@code {"ok":true,"job":ID,"initialComplexity"}}; {@code
-     * optimizeStep(ID, steps)} runs up to {@code steps} outer steps → {@code {"ok":true,"done",
-     * "start","iteration","complexity","trace":[…]}} (the trace of the start in progress);
+     * scenario, options)} → {@code {"ok":true,"job":ID,"initialComplexity","method"}} (method
+     * "domain" or "working-set"); {@code optimizeStep(ID, steps)} runs up to {@code steps} outer
+     * steps (working-set rounds beyond enumeration) → {@code {"ok":true,"done","start","iteration",
+     * "complexity","method","workingSet"(working set only),"trace":[…]}} (the trace of the start
+     * in progress);
      * {@code optimizeFinish(ID)} → exactly what {@link #optimize} answers for the same input (it
      * is the same loop); {@link #optimizeStop}(ID) ends the search now and answers the same way
      * for the best point so far (status cancelled); {@code optimizeCancel(ID)} forgets the job. At most {@link #MAX_JOBS} unfinished jobs are kept.
@@ -326,6 +328,7 @@ public final class JsonFacade {
             m.put("ok", true);
             m.put("job", id);
             m.put("initialComplexity", ResultJson.num(run.initialComplexity()));
+            m.put("method", run.method());
             return Json.write(m);
         } catch (RuntimeException e) {
             return fail(e);
@@ -350,6 +353,10 @@ public final class JsonFacade {
             m.put("start", run.currentStart());
             m.put("iteration", run.currentIteration());
             m.put("complexity", ResultJson.num(run.currentComplexity()));
+            m.put("method", run.method());
+            if (run.workingSetSize() > 0) {
+                m.put("workingSet", run.workingSetSize());
+            }
             List<Object> trace = new ArrayList<>();
             for (double d : run.currentTrace()) {
                 trace.add(ResultJson.num(d));

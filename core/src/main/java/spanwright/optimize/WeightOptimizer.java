@@ -192,6 +192,16 @@ public final class WeightOptimizer {
             }
         }
 
+        /** "working-set" (beyond enumeration) or "domain": which optimiser this run is. */
+        public String method() {
+            return ws != null ? "working-set" : "domain";
+        }
+
+        /** Worst inputs in the working set so far (0 for the whole-domain optimiser). */
+        public int workingSetSize() {
+            return ws == null ? 0 : ws.workingSetSize(true) + ws.workingSetSize(false);
+        }
+
         /** √(W₊W₋) with the starting weights. */
         public double initialComplexity() {
             return initial;

@@ -13,6 +13,33 @@ import org.junit.jupiter.api.Test;
 class JsonFacadeOptimizeStepsTest {
     @Test
     @SuppressWarnings("unchecked")
+    void beyondEnumerationTheSameEntriesRunTheWorkingSet() {
+        // Common practice, no source: K_7 has 21 edge variables, past enumeration's automatic
+        // limit, so the same entries run the working-set optimiser; stepped equals one call, and the
+        // start is the derived unit-weight value √((n − 1)·⌊n²/4⌋) = √(6·12) (DESIGN §6).
+        Map<String, Object> built = (Map<String, Object>) Json.parse(JsonFacade.build(
+                "{\"kind\":\"host\",\"family\":\"complete\",\"size\":[7]}"));
+        String text = Json.write(built.get("scenario"));
+        String oneCall = JsonFacade.optimize(text, null);
+        Map<String, Object> start = (Map<String, Object>) Json.parse(JsonFacade.optimizeStart(text, null));
+        assertEquals("working-set", start.get("method"));
+        assertEquals(Math.sqrt(72), ((Number) start.get("initialComplexity")).doubleValue(), 1e-12);
+        int job = ((Number) start.get("job")).intValue();
+        boolean done = false;
+        for (int k = 0; k < 10_000 && !done; k++) {
+            Map<String, Object> step = (Map<String, Object>) Json.parse(JsonFacade.optimizeStep(job, 1));
+            done = (Boolean) step.get("done");
+        }
+        assertEquals(oneCall, JsonFacade.optimizeFinish(job));
+        Map<String, Object> result = (Map<String, Object>) ((Map<String, Object>) Json.parse(oneCall)).get("result");
+        assertEquals("working-set", result.get("method"));
+        Map<String, Object> ws = (Map<String, Object>) result.get("workingSet");
+        assertTrue(((Number) ws.get("rounds")).intValue() >= 1);
+        assertTrue(((Number) result.get("complexity")).doubleValue() < Math.sqrt(72));
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
     void steppedOptimisationEqualsTheOneCallResult() throws Exception {
         // Common practice, no source: optimize is a loop over the same steps, so the stepped run
         // must give the same text; the trace grows and never increases.
