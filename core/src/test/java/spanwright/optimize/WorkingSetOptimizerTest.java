@@ -147,9 +147,6 @@ class WorkingSetOptimizerTest {
         {
             AnalysisResult all = Analysis.run(w.scenario);
             assertEquals(all.complexity(), w.complexity, 1e-9 * all.complexity());
-            OptimizationResult d = WeightOptimizer.optimize(sc, DOMAIN, null);
-            System.out.println("general seed " + seed + ": domain " + d.complexity + ", working set " + w.complexity
-                    + " (" + w.rounds + " rounds)");
         }
     }
 }
