@@ -1,7 +1,8 @@
 /*
  * Spanwright page: where scenarios come from and go to. Opening files, the gallery and share links
- * (bad input never replaces the work), saving and exports, the autosave in localStorage, and the
- * scenario the page starts with. The parts are shared through self.SwPage (see app-state.js).
+ * (bad input never replaces the work), saving and exports, the autosave in localStorage with its
+ * guard against a second tab, the kept earlier work, the Open link box, and the scenario the page
+ * starts with. The parts are shared through self.SwPage (see app-state.js).
  */
 (function () {
   "use strict";
@@ -11,7 +12,9 @@
   const $ = function (id) { return document.getElementById(id); };
 
   const AUTOSAVE_KEY = "spanwright.autosave.v1";
-  const PREVIOUS_KEY = "spanwright.previous.v1";
+  const KEPT_KEY = "spanwright.kept.v1";
+  const OLD_PREVIOUS_KEY = "spanwright.previous.v1";   // the one slot of earlier versions, folded into KEPT_KEY
+  const KEPT_LIMIT = 20;
 
   /* A small scenario of our own, used only when the gallery is empty. */
   const FALLBACK = {
@@ -24,9 +27,112 @@
         { id: "e3", u: "m", v: "t", when: "1", weight: 1 }] }
   };
 
-  function autosave() {
-    try { localStorage.setItem(AUTOSAVE_KEY, JSON.stringify({ savedAt: Date.now(), scenario: P.text() })); } catch (e) { /* storage full or blocked */ }
+  // ------------------------------------------------------------------ autosave and kept work
+
+  /* Each tab names itself; the autosave record says which tab wrote it and when. The last tab to
+   * write owns the autosave: a tab that sees another tab write it (the storage event) stops
+   * writing it, says so, and keeps its own work in a kept slot of its own instead, until the user
+   * makes it the autosaving tab again. */
+  const tabId = Date.now().toString(36) + "-" + Math.random().toString(36).slice(2, 8);
+  let autosaving = true;
+  document.body.dataset.autosave = "on";
+
+  function readJson(key, fallback) {
+    try { const v = JSON.parse(localStorage.getItem(key) || "null"); return v === null ? fallback : v; } catch (e) { return fallback; }
   }
+
+  function autosave() {
+    const t = P.text();
+    if (!autosaving) { keep(t, "this tab, while another tab autosaved", tabId); return; }
+    try {
+      localStorage.setItem(AUTOSAVE_KEY, JSON.stringify({ savedAt: Date.now(), tab: tabId, pristine: t === state.pristine, scenario: t }));
+    } catch (e) { /* storage full or blocked */ }
+  }
+
+  /** The kept list, newest first: [{at, title, text, why, tab?}]. */
+  function keptList() {
+    const list = readJson(KEPT_KEY, []);
+    return Array.isArray(list) ? list.filter(function (k) { return k && typeof k.text === "string"; }) : [];
+  }
+
+  /** Keeps one scenario text in the kept list (newest first, at most KEPT_LIMIT, each text once;
+   *  a tab's own slot is replaced in place). Returns whether it is kept. */
+  function keep(text, why, tab) {
+    let list = keptList().filter(function (k) { return k.text !== text && !(tab && k.tab === tab); });
+    let title = "";
+    try { title = String(JSON.parse(text).title || ""); } catch (e) { /* kept untitled */ }
+    const entry = { at: Date.now(), title: title, text: text, why: why };
+    if (tab) entry.tab = tab;
+    list.unshift(entry);
+    list = list.slice(0, KEPT_LIMIT);
+    try { localStorage.setItem(KEPT_KEY, JSON.stringify(list)); } catch (e) { return false; }
+    renderKept();
+    return true;
+  }
+
+  /** Called by openScenario with the text of the scenario it replaces (not a bundled one as it came). */
+  function keepReplaced(text, why) { return keep(text, why || "replaced", null); }
+
+  (function foldOldSlot() {
+    const old = localStorage.getItem(OLD_PREVIOUS_KEY);
+    if (old) { keep(old, "kept by an earlier version", null); localStorage.removeItem(OLD_PREVIOUS_KEY); }
+  })();
+
+  function stamp(ms) {
+    const d = new Date(ms);
+    const two = function (n) { return (n < 10 ? "0" : "") + n; };
+    return d.getFullYear() + "-" + two(d.getMonth() + 1) + "-" + two(d.getDate()) + " " + two(d.getHours()) + ":" + two(d.getMinutes());
+  }
+
+  function renderKept() {
+    const sel = $("kept");
+    if (!sel) return;
+    const list = keptList();
+    sel.textContent = "";
+    const head = document.createElement("option");
+    head.value = "";
+    head.textContent = list.length ? "Earlier work (" + list.length + ")…" : "No earlier work kept";
+    sel.appendChild(head);
+    list.forEach(function (k, i) {
+      const op = document.createElement("option");
+      op.value = String(i);
+      op.textContent = (k.title || "Untitled scenario") + " — " + stamp(k.at) + " (" + k.why + ")";
+      sel.appendChild(op);
+    });
+    sel.disabled = !list.length;
+    $("kept-open").disabled = !list.length;
+  }
+
+  function openKept() {
+    const i = $("kept").value;
+    if (i === "") { P.notify("Choose a scenario from the Earlier work list first.", "info"); return; }
+    const k = keptList()[Number(i)];
+    if (!k) return;
+    loadText("earlier work '" + (k.title || "Untitled scenario") + "'", k.text, { why: "replaced by earlier work" }).then(function (ok) {
+      if (ok) P.notify("Brought back '" + (k.title || "Untitled scenario") + "' (" + stamp(k.at) + "). Undo brings back what you had.", "info");
+    });
+  }
+
+  function setAutosaving(on) {
+    autosaving = on;
+    document.body.dataset.autosave = on ? "on" : "paused";
+    $("autosave-state").hidden = on;
+    if (on) autosave(); else keep(P.text(), "this tab, while another tab autosaved", tabId);
+  }
+
+  window.addEventListener("storage", function (ev) {
+    if (ev.key === KEPT_KEY) { renderKept(); return; }
+    if (ev.key !== AUTOSAVE_KEY || !ev.newValue) return;
+    let rec = null;
+    try { rec = JSON.parse(ev.newValue); } catch (e) { /* not ours to read */ }
+    if (!rec || rec.tab === tabId) return;
+    const wasOn = autosaving;
+    setAutosaving(false);
+    if (wasOn) {
+      P.notify("Spanwright is open in another tab of this browser, and that tab now autosaves its work. So that neither tab overwrites the other, this tab no longer autosaves; " +
+        "its work is kept under Earlier work (Open link box).", "error", { label: "Autosave this tab instead", id: "autosave-here", action: function () { setAutosaving(true); } });
+    }
+  });
 
   // ------------------------------------------------------------------ files, gallery, links
 
@@ -52,8 +158,9 @@
         P.notify("Could not open " + sourceName + ": " + (err.message || "it is not a valid scenario") + (err.path ? " (at " + err.path + ")" : "") + ". Your current work is unchanged.", "error");
         return false;
       }
-      P.openScenario(obj, opts.initial);
+      const kept = P.openScenario(obj, { why: opts.why || "replaced by " + sourceName, pristine: !!opts.pristine });
       P.clearFocus();
+      document.body.dataset.keptReplaced = kept ? "yes" : "no";
       if (v.warnings && v.warnings.length) P.notify("Opened " + sourceName + " with warnings: " + v.warnings.map(function (w) { return w.message || String(w); }).join("; "), "info");
       return true;
     });
@@ -110,7 +217,7 @@
     $("gallery").value = "";
     if (i === "") return;
     const g = gallery[Number(i)];
-    loadText("gallery scenario '" + g.file + "'", g.text).then(function (ok) { if (ok) P.notify("Opened '" + g.title + "' from the gallery. Undo brings back what you had.", "info"); });
+    loadText("gallery scenario '" + g.file + "'", g.text, { pristine: true }).then(function (ok) { if (ok) P.notify("Opened '" + g.title + "' from the gallery. Undo brings back what you had.", "info"); });
   });
 
   function baseUrl() { return location.href.split("#")[0]; }
@@ -120,53 +227,107 @@
       if (!r.ok) { P.notify("Could not make a link: " + ((r.error && r.error.message) || "unknown problem"), "error"); return; }
       const link = baseUrl() + "#" + r.fragment;
       $("share-link").value = link;
+      $("share-fragment").value = r.fragment;
+      $("open-box").hidden = true;
       $("share-box").hidden = false;
       $("share-link").select();
-      try { if (navigator.clipboard) navigator.clipboard.writeText(link).catch(function () { /* the field shows it */ }); } catch (e) { /* the field shows it */ }
+      copyText(link);
     });
   });
+  function copyText(t) {
+    try { if (navigator.clipboard) navigator.clipboard.writeText(t).catch(function () { /* the field shows it */ }); } catch (e) { /* the field shows it */ }
+  }
+  $("share-copy-link").addEventListener("click", function () { $("share-link").select(); copyText($("share-link").value); });
+  $("share-copy-fragment").addEventListener("click", function () { $("share-fragment").select(); copyText($("share-fragment").value); });
   $("share-close").addEventListener("click", function () { $("share-box").hidden = true; });
 
   function clearHash() {
     try { history.replaceState(null, "", baseUrl()); } catch (e) { /* some file:// setups refuse; harmless */ }
   }
 
-  /** Opens the scenario in the URL fragment, if any. A broken one leaves the current work alone. */
-  function openFragment(initial) {
-    const frag = location.hash.replace(/^#/, "");
-    if (!frag) return Promise.resolve(false);
+  /** The share fragment in what the user pasted: a whole link from any place (file://, http://,
+   *  a mail program's wrapped line) or the fragment alone, with or without its '#'; "" if none. */
+  function fragmentOf(pasted) {
+    let t = String(pasted || "").replace(/\s+/g, "");
+    const hash = t.indexOf("#");
+    if (hash >= 0) t = t.slice(hash + 1);
+    else if (/^[a-z][a-z0-9+.-]*:/i.test(t) && !/^s\d+\./i.test(t)) return "";
+    if (/%[0-9a-f]{2}/i.test(t)) { try { t = decodeURIComponent(t); } catch (e) { /* left as it is */ } }
+    return t;
+  }
+
+  /** Opens a share fragment (from the address bar or the Open link field). A broken one leaves
+   *  the current work alone; replaced work of the user's own is one Undo away and kept. */
+  function openShared(frag, sourceName) {
     return state.bridge.call("decodeShare", frag).then(function (r) {
-      clearHash();
       if (!r.ok) {
         P.notify("This link does not hold a scenario Spanwright can open: " + ((r.error && r.error.message) || "it is damaged") +
           " Your current work is unchanged.", "error");
         document.body.dataset.linkStatus = "broken";
         return false;
       }
-      const before = state.scenario ? P.text() : null;
-      return loadText("the link", r.scenario, { initial: initial }).then(function (ok) {
+      const before = P.text();
+      return loadText(sourceName, r.scenario, { why: "replaced by a link" }).then(function (ok) {
         document.body.dataset.linkStatus = ok ? "opened" : "broken";
-        if (ok && before && before !== P.text()) {
-          try { localStorage.setItem(PREVIOUS_KEY, before); } catch (e) { /* ignore */ }
-          P.notify("Opened the scenario from the link.", "info", { label: "Bring back my previous work", id: "restore-previous", action: function () {
-            loadText("your previous work", before);
-          } });
+        if (ok && document.body.dataset.keptReplaced === "yes") {
+          P.notify("Opened the scenario from the link. What you had is one Undo away, and kept under Earlier work (Open link box).", "info",
+            { label: "Bring back what you had", id: "restore-previous", action: function () { loadText("your previous work", before, { why: "replaced by earlier work" }); } });
+        } else if (ok) {
+          P.notify("Opened the scenario from the link.", "info");
         }
         return ok;
       });
     });
   }
-  window.addEventListener("hashchange", function () { if (state.bridge && state.bridge.ready) openFragment(false); });
+
+  /** Opens the scenario in the URL fragment, if any. */
+  function openFragment() {
+    const frag = location.hash.replace(/^#/, "");
+    if (!frag) return Promise.resolve(false);
+    clearHash();
+    return openShared(frag, "the link");
+  }
+  window.addEventListener("hashchange", function () { if (state.bridge && state.bridge.ready) openFragment(); });
+
+  // ------------------------------------------------------------------ the Open link box
+
+  function showOpenBox() {
+    $("share-box").hidden = true;
+    $("open-box").hidden = false;
+    renderKept();
+    $("open-link").focus();
+    $("open-link").select();
+  }
+  function openPasted() {
+    const frag = fragmentOf($("open-link").value);
+    if (!frag) {
+      P.notify("There is no scenario in what was pasted: a Spanwright link ends in #s1.… — paste the whole link, or only the part after #.", "error");
+      document.body.dataset.linkStatus = "broken";
+      return;
+    }
+    openShared(frag, "the pasted link").then(function (ok) { if (ok) { $("open-link").value = ""; $("open-box").hidden = true; } });
+  }
+  $("open-link-button").addEventListener("click", function () { if ($("open-box").hidden) showOpenBox(); else $("open-box").hidden = true; });
+  $("open-link-go").addEventListener("click", openPasted);
+  $("open-link").addEventListener("keydown", function (ev) {
+    if (ev.key === "Enter") { ev.preventDefault(); openPasted(); }
+    if (ev.key === "Escape") { ev.preventDefault(); $("open-box").hidden = true; }
+  });
+  $("open-close").addEventListener("click", function () { $("open-box").hidden = true; });
+  $("kept-open").addEventListener("click", openKept);
+  $("autosave-state").addEventListener("click", function () { setAutosaving(true); P.notify("This tab autosaves again; another open tab now stops autosaving.", "info"); });
+  renderKept();
 
   // ------------------------------------------------------------------ the scenario the page starts with
 
   /** The autosaved work if there is any, else the gallery's default scenario, else FALLBACK; as
-   *  the parsed scenario (FALLBACK if the text does not parse) and where it came from. */
+   *  the parsed scenario (FALLBACK if the text does not parse), where it came from, and whether
+   *  an autosave holds a bundled scenario as it came (pristine). */
   function initialScenario() {
     let init = null;
     try {
       const saved = JSON.parse(localStorage.getItem(AUTOSAVE_KEY) || "null");
-      if (saved && saved.scenario) init = { text: saved.scenario, from: "autosave" };
+      if (saved && saved.scenario) init = { text: saved.scenario, from: "autosave", pristine: saved.pristine === true };
     } catch (e) { /* a damaged autosave is ignored, the default opens */ }
     if (!init) {
       const def = gallery.find(function (g) { return g.file === "default.json"; }) || gallery[0];
@@ -174,10 +335,11 @@
     }
     let obj;
     try { obj = JSON.parse(init.text); } catch (e) { obj = FALLBACK; }
-    return { scenario: obj, from: init.from };
+    return { scenario: obj, from: init.from, pristine: init.pristine === true };
   }
 
   Object.assign(P, {
-    autosave: autosave, loadText: loadText, gallery: gallery, openFragment: openFragment, initialScenario: initialScenario
+    autosave: autosave, keepReplaced: keepReplaced, loadText: loadText, gallery: gallery, openFragment: openFragment,
+    showOpenBox: showOpenBox, initialScenario: initialScenario
   });
 })();

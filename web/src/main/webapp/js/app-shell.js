@@ -59,6 +59,7 @@
       case "b": case "B": showSheet("bounds"); break;
       case "r": case "R": showSheet("run"); break;
       case "n": case "N": if (!presenting && window.SwBuilder) { ev.preventDefault(); window.SwBuilder.open(); } break;
+      case "l": case "L": if (!presenting) { ev.preventDefault(); P.showOpenBox(); } break;
       case "Escape": if (presenting) setPresenting(false); $("keys-help").hidden = true; break;
       case "?": $("keys-help").hidden = !$("keys-help").hidden; break;
       case "Delete": case "Backspace": if (!presenting && state.selection) { ev.preventDefault(); P.deleteElement(state.selection); } break;
@@ -108,7 +109,7 @@
     const pref = preferredEngine();
     $("engine-choice").value = pref;
     const init = P.initialScenario();
-    P.setScenario(init.scenario, { analyse: false, redraw: true, fit: true });
+    P.startScenario(init.scenario, init.from !== "autosave" || init.pristine);
     P.clearFocus();
     document.body.dataset.loadedFrom = init.from;
     startEngine(pref, function () {

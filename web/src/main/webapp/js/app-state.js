@@ -23,10 +23,11 @@
    * app-shell.js; job app-shell.js and app-summary.js; analysis, serial and firstRenderMs
    * app-summary.js; view app-inputs.js; focus app-focus.js (app-summary.js clears it before it
    * finds the input again in a new analysis); focusDetail and detailSerial app-focus.js;
-   * selection app-network.js and openScenario() here. */
+   * selection app-network.js and openScenario() here; pristine only this file. */
   const state = {
     scenario: null,        // the scenario object (format v1)
     undo: [], redo: [],    // JSON texts
+    pristine: null,        // the text of a bundled scenario as it was opened, until it is edited
     bridge: null,
     engine: "",
     job: 0,
@@ -94,11 +95,16 @@
     if (r && typeof r === "object") next = normalise(r);
     const after = JSON.stringify(next);
     if (after === before) return false;
-    state.undo.push(before);
-    if (state.undo.length > HISTORY_LIMIT) state.undo.shift();
+    pushUndo(before);
     state.redo = [];
     setScenario(next, { analyse: opts.analyse !== false, redraw: opts.redraw !== false });
     return true;
+  }
+
+  /** One step on the undo stack, which keeps the newest HISTORY_LIMIT steps. */
+  function pushUndo(before) {
+    state.undo.push(before);
+    while (state.undo.length > HISTORY_LIMIT) state.undo.shift();
   }
 
   function undo() {
@@ -108,19 +114,36 @@
   }
   function redo() {
     if (!state.redo.length) return;
-    state.undo.push(text());
+    pushUndo(text());
     setScenario(JSON.parse(state.redo.pop()), { analyse: true, redraw: true });
   }
 
-  /** Puts a scenario opened from somewhere (file, gallery, link) in place of the work, which goes
-   *  on the undo stack unless this is the page's first scenario; nothing stays selected. */
-  function openScenario(obj, initial) {
-    if (state.scenario && !initial) {
-      state.undo.push(text());
+  /** Puts a scenario opened from somewhere (file, gallery, link, builder) in place of the work.
+   *  The replaced scenario becomes an undo step and is offered to P.keepReplaced (which keeps the
+   *  user's own work across reloads); nothing stays selected. opts.pristine: the opened scenario
+   *  is a bundled one as it comes (so replacing it later loses nothing). Returns whether the
+   *  replaced scenario was kept as the user's own work. */
+  function openScenario(obj, opts) {
+    opts = opts || {};
+    let kept = false;
+    if (state.scenario) {
+      const before = text();
+      pushUndo(before);
       state.redo = [];
+      if (before !== state.pristine) kept = P.keepReplaced(before, opts.why || "replaced");
     }
     state.selection = null;
     setScenario(obj, { analyse: true, redraw: true, fit: true });
+    state.pristine = opts.pristine ? text() : null;
+    P.autosave();   // again, now that it is known whether this is a bundled scenario as it came
+    return kept;
+  }
+
+  /** The page's first scenario: no undo step; pristine unless it is the user's autosaved work. */
+  function startScenario(obj, pristine) {
+    setScenario(obj, { analyse: false, redraw: true, fit: true });
+    state.pristine = pristine ? text() : null;
+    P.autosave();
   }
 
   function setScenario(sc, opts) {
@@ -154,6 +177,7 @@
   Object.assign(P, {
     state: state, hooks: hooks, notify: notify,
     normalise: normalise, text: text, freshId: freshId,
-    commit: commit, undo: undo, redo: redo, openScenario: openScenario, setScenario: setScenario
+    commit: commit, undo: undo, redo: redo, openScenario: openScenario, startScenario: startScenario, setScenario: setScenario,
+    historyLimit: HISTORY_LIMIT
   });
 })();

@@ -229,6 +229,124 @@ class WorkbenchIT extends PageTestBase {
         assertEquals(work, page.js("return window.Spanwright.scenarioText();"));
     }
 
+    /** A share fragment for the page's current scenario with another title, made by the page's engine. */
+    private static String fragmentTitled(String title) {
+        return (String) ((org.openqa.selenium.JavascriptExecutor) page.driver).executeAsyncScript(
+                "var cb = arguments[arguments.length - 1]; var o = JSON.parse(window.Spanwright.scenarioText()); o.title = arguments[0];"
+                + " window.SwApp.bridge().call('encodeShare', JSON.stringify(o)).then(function (r) { cb(r.fragment); });", title);
+    }
+
+    private static String shownTitle() {
+        return (String) page.js("return JSON.parse(window.Spanwright.scenarioText()).title;");
+    }
+
+    private static void setTitle(String title) {
+        WebElement field = page.$("title");
+        field.clear();
+        field.sendKeys(title, Keys.TAB);
+        page.waitFor("title committed", WAIT, () -> title.equals(shownTitle()));
+    }
+
+    private static void followLink(String url) {
+        page.js("document.body.dataset.linkStatus = '';");
+        page.driver.get(url);
+        page.waitFor("link opened: " + url, WAIT, () -> "opened".equals(page.js("return document.body.dataset.linkStatus;")));
+    }
+
+    /** Issue: link A, then link B, then a gallery scenario, then a file, each replacing the last:
+     *  every replaced scenario is one Undo step, the user's own work is kept across a reload, and
+     *  the undo stack keeps its limit however many scenarios are opened. */
+    @Test
+    @SuppressWarnings("unchecked")
+    void openingOneThingAfterAnotherNeverLosesTheUsersWork() throws IOException {
+        page.openFresh(null);
+        // A fresh browser opening a link has nothing of its own to bring back: no offer.
+        String base = PageDriver.pageUrl(null);
+        String fa = fragmentTitled("Link A"), fb = fragmentTitled("Link B");
+        page.js("localStorage.clear();");
+        page.driver.get("about:blank");
+        followLink(base + "#" + fa);
+        assertTrue(page.driver.findElements(By.id("restore-previous")).isEmpty(), "no restore offer without saved work");
+        assertEquals("Link A", shownTitle());
+
+        setTitle("My own work");
+        followLink(base + "#" + fb);
+        assertEquals("Link B", shownTitle());
+        assertTrue(page.$("restore-previous").isDisplayed(), "replaced own work is offered back");
+        page.js("location.hash = arguments[0];", fa);
+        page.waitFor("second link opened", WAIT, () -> "Link A".equals(shownTitle()));
+        int serial = page.serial();
+        new Select(page.$("gallery")).selectByIndex(2);
+        page.waitForAnalysis(serial, WAIT);
+        String galleryTitle = shownTitle();
+        Path file = Files.createTempFile("kept-", ".json");
+        Files.writeString(file, scenarioFile("default.json").replaceFirst("\"title\"\\s*:\\s*\"[^\"]*\"", "\"title\": \"From a file\""), StandardCharsets.UTF_8);
+        page.$("open-file").sendKeys(file.toString());
+        page.waitFor("file opened", WAIT, () -> "From a file".equals(shownTitle()));
+        Files.deleteIfExists(file);
+
+        String[] back = {galleryTitle, "Link A", "Link B", "My own work"};
+        for (String expected : back) {
+            page.driver.findElement(By.tagName("body")).sendKeys(Keys.chord(Keys.CONTROL, "z"));
+            page.waitFor("undo to " + expected, WAIT, () -> expected.equals(shownTitle()));
+        }
+
+        // Kept across a reload, under Earlier work, and brought back from there.
+        setTitle("Scratch");
+        page.driver.navigate().refresh();
+        page.waitForAnalysis(0, WAIT);
+        List<Object> kept = (List<Object>) Json.parse((String) page.js("return localStorage.getItem('spanwright.kept.v1');"));
+        List<String> keptTitles = new java.util.ArrayList<>();
+        for (Object k : kept) {
+            keptTitles.add(String.valueOf(((Map<String, Object>) k).get("title")));
+        }
+        assertTrue(keptTitles.containsAll(List.of("My own work", "Link A", "Link B")), "kept: " + keptTitles);
+        assertFalse(keptTitles.contains(galleryTitle), "a bundled scenario as it came is not kept: " + keptTitles);
+        page.driver.findElement(By.tagName("body")).sendKeys("l");
+        page.waitFor("open box", WAIT, () -> page.$("open-box").isDisplayed());
+        new Select(page.$("kept")).selectByIndex(1 + keptTitles.indexOf("My own work"));
+        page.$("kept-open").click();
+        page.waitFor("earlier work back", WAIT, () -> "My own work".equals(shownTitle()));
+
+        // However many scenarios are opened, the undo stack keeps its limit.
+        long limit = ((Number) page.js("return window.SwPage.historyLimit;")).longValue();
+        page.js("for (var i = 0; i < arguments[0]; i++) { var o = JSON.parse(window.Spanwright.scenarioText()); o.title = 'n' + i; window.SwPage.openScenario(o, {}); }", limit + 20);
+        assertEquals(limit, ((Number) page.js("return window.SwPage.state.undo.length;")).longValue(), "undo depth after many openings");
+    }
+
+    /** Issue: two tabs wrote the same autosave without a word. A tab that sees another tab write
+     *  it stops autosaving, says so, keeps its own work, and can take the autosave back. */
+    @Test
+    void aSecondTabWritingTheAutosaveIsNoticed() {
+        page.openFresh(null);
+        String first = page.driver.getWindowHandle();
+        page.driver.switchTo().newWindow(org.openqa.selenium.WindowType.TAB);
+        String second = page.driver.getWindowHandle();
+        try {
+            page.openFresh(null);
+            setTitle("Work of the second tab");
+            page.driver.switchTo().window(first);
+            page.waitFor("first tab warned", WAIT, () -> "paused".equals(page.js("return document.body.dataset.autosave;")));
+            assertTrue(page.$("notice").isDisplayed() && page.$("notice-text").getText().contains("another tab"), page.$("notice-text").getText());
+            assertTrue(page.$("autosave-state").isDisplayed(), "the top bar says this tab does not autosave");
+            setTitle("Work of the first tab");
+            String saved = (String) page.js("return localStorage.getItem('spanwright.autosave.v1');");
+            assertTrue(saved.contains("Work of the second tab") && !saved.contains("Work of the first tab"), "not overwritten silently: " + saved);
+            String kept = (String) page.js("return localStorage.getItem('spanwright.kept.v1');");
+            assertTrue(kept.contains("Work of the first tab"), "the first tab's work is kept: " + kept);
+
+            page.$("autosave-here").click();
+            page.waitFor("first tab autosaves again", WAIT, () -> "on".equals(page.js("return document.body.dataset.autosave;")));
+            assertTrue(((String) page.js("return localStorage.getItem('spanwright.autosave.v1');")).contains("Work of the first tab"));
+            page.driver.switchTo().window(second);
+            page.waitFor("second tab warned in turn", WAIT, () -> "paused".equals(page.js("return document.body.dataset.autosave;")));
+        } finally {
+            page.driver.switchTo().window(second);
+            page.driver.close();
+            page.driver.switchTo().window(first);
+        }
+    }
+
     @Test
     void aPauseInTypingAppliesTheFieldSoAReloadKeepsIt() {
         // The user types into the function field and reloads without leaving the field: what was
