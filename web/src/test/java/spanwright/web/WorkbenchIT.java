@@ -253,6 +253,51 @@ class WorkbenchIT extends PageTestBase {
         page.waitFor("link opened: " + url, WAIT, () -> "opened".equals(page.js("return document.body.dataset.linkStatus;")));
     }
 
+    /** Issue: a link only opened at the same disk path. The Open link field (key L) takes a whole
+     *  link from another place, a link wrapped by a mail program, or the fragment alone; Copy link
+     *  offers the fragment alone too; what holds no scenario gives a message and keeps the work. */
+    @Test
+    void aLinkPastedFromAnotherPlaceOpens() {
+        page.openFresh(null);
+        setTitle("Sent to a colleague");
+        page.$("copy-link").click();
+        page.waitFor("link shown", WAIT, () -> !page.$("share-fragment").getAttribute("value").isEmpty());
+        String link = page.$("share-link").getAttribute("value");
+        String fragment = page.$("share-fragment").getAttribute("value");
+        assertTrue(fragment.startsWith("s1.") && link.endsWith("#" + fragment), link + " / " + fragment);
+        page.$("share-close").click();
+        String sent = scenarioText();
+
+        String half = fragment.substring(0, fragment.length() / 2), rest = fragment.substring(fragment.length() / 2);
+        String[] pastes = {
+            "https://files.example.org/shared/spanwright.html#" + fragment,
+            "file:///C:/Users/colleague/Downloads/spanwright.html#" + half + "\n  " + rest,
+            fragment,
+            "#" + fragment,
+        };
+        for (String pasted : pastes) {
+            setTitle("Something else");
+            page.driver.findElement(By.tagName("body")).sendKeys("l");
+            page.waitFor("open box shown", WAIT, () -> page.$("open-box").isDisplayed());
+            assertEquals("open-link", page.js("return document.activeElement.id;"), "the field has the keyboard");
+            page.js("document.body.dataset.linkStatus = ''; document.getElementById('open-link').value = arguments[0];", pasted);
+            page.$("open-link").sendKeys(Keys.ENTER);
+            page.waitFor("pasted link opened: " + pasted, WAIT, () -> "opened".equals(page.js("return document.body.dataset.linkStatus;")));
+            assertEquals(sent, scenarioText(), "opened from " + pasted);
+            assertFalse(page.$("open-box").isDisplayed(), "the box closes after opening");
+        }
+
+        String work = scenarioText();
+        for (String bad : new String[] {"https://files.example.org/shared/spanwright.html", "s1.not-a-scenario"}) {
+            page.driver.findElement(By.tagName("body")).sendKeys("l");
+            page.js("document.body.dataset.linkStatus = ''; document.getElementById('open-link').value = arguments[0];", bad);
+            page.$("open-link-go").click();
+            page.waitFor("refused: " + bad, WAIT, () -> "broken".equals(page.js("return document.body.dataset.linkStatus;")));
+            assertTrue(page.$("notice-text").getText().contains("scenario"), page.$("notice-text").getText());
+            assertEquals(work, scenarioText(), "work kept after pasting " + bad);
+        }
+    }
+
     /** Issue: link A, then link B, then a gallery scenario, then a file, each replacing the last:
      *  every replaced scenario is one Undo step, the user's own work is kept across a reload, and
      *  the undo stack keeps its limit however many scenarios are opened. */
