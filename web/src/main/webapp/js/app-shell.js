@@ -41,6 +41,11 @@
     if (typing(ev) || ev.ctrlKey || ev.metaKey || ev.altKey) return;
     if (document.querySelector("dialog[open]")) return;   // a dialog has the keyboard
     const presenting = document.body.dataset.mode === "present";
+    if (ev.shiftKey && (key === "ArrowDown" || key === "ArrowUp" || key === "PageDown" || key === "PageUp")) {
+      ev.preventDefault();
+      scrollSheet(key === "ArrowDown" ? 1 : key === "ArrowUp" ? -1 : key === "PageDown" ? 8 : -8);
+      return;
+    }
     switch (key) {
       case "ArrowDown": case "ArrowRight": ev.preventDefault(); P.step(1); break;
       case "ArrowUp": case "ArrowLeft": ev.preventDefault(); P.step(-1); break;
@@ -58,6 +63,7 @@
       case "w": case "W": showSheet("weights"); break;
       case "b": case "B": showSheet("bounds"); break;
       case "r": case "R": showSheet("run"); break;
+      case "g": case "G": showSheet("sweep"); break;
       case "n": case "N": if (!presenting && window.SwBuilder) { ev.preventDefault(); window.SwBuilder.open(); } break;
       case "l": case "L": if (!presenting) { ev.preventDefault(); P.showOpenBox(); } break;
       case "Escape": if (presenting) setPresenting(false); $("keys-help").hidden = true; break;
@@ -66,6 +72,15 @@
       default: break;
     }
   });
+
+  /** Scrolls the visible result sheet by steps of an eighth of its height (8 steps: one height),
+   *  so an overflowing sheet can be read from the keyboard while the arrows step through inputs. */
+  function scrollSheet(steps) {
+    const sheet = $("sheet-" + currentSheet);
+    if (!sheet) return;
+    sheet.scrollBy({ top: steps * Math.max(40, Math.round(sheet.clientHeight / 8)), behavior: "instant" });
+    document.body.dataset.sheetScroll = String(Math.round(sheet.scrollTop));
+  }
 
   // ------------------------------------------------------------------ engine start
 
