@@ -221,6 +221,7 @@
       }, { analyse: false, redraw: false });
     },
     select: function (sel) { state.selection = sel; renderSelection(); },
+    partial: function (on) { $("graph-part").hidden = !on; },
     hover: function (h) { showHover(h); }
   });
 
@@ -260,7 +261,22 @@
     P.commit(function (sc) { sc.graph.vertices.forEach(function (v) { if (pos[v.id]) { v.x = pos[v.id].x; v.y = pos[v.id].y; } }); }, { analyse: false });
   });
 
+  $("fit-view").addEventListener("click", function () { view.wholeGraph(); });
+
+  /** Wide drawing: the right column (results and inputs) hidden, the drawing on the whole width. */
+  function toggleSides() {
+    const wide = document.body.dataset.sides !== "hidden";
+    document.body.dataset.sides = wide ? "hidden" : "shown";
+    const b = $("toggle-sides");
+    b.setAttribute("aria-pressed", wide ? "true" : "false");
+    b.textContent = wide ? "⇤ Panels" : "⇥ Wide";
+    view.cy.resize();
+    view.fit();
+  }
+  $("toggle-sides").addEventListener("click", toggleSides);
+
   Object.assign(P, {
+    toggleSides: toggleSides,
     drawing: view, renderEdgeTable: renderEdgeTable, renderSelection: renderSelection, deleteElement: deleteElement
   });
 })();

@@ -64,6 +64,8 @@
       case "b": case "B": showSheet("bounds"); break;
       case "r": case "R": showSheet("run"); break;
       case "g": case "G": showSheet("sweep"); break;
+      case "f": case "F": view.wholeGraph(); break;
+      case "d": case "D": if (!presenting) P.toggleSides(); break;
       case "n": case "N": if (!presenting && window.SwBuilder) { ev.preventDefault(); window.SwBuilder.open(); } break;
       case "l": case "L": if (!presenting) { ev.preventDefault(); P.showOpenBox(); } break;
       case "Escape": if (presenting) setPresenting(false); $("keys-help").hidden = true; break;

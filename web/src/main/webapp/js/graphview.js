@@ -119,6 +119,7 @@
     includeSourceLabels: false, includeTargetLabels: false, includeOverlays: false, includeUnderlays: false,
     includeOutlines: false, useCache: false };
   const LABEL_GAP = 2;   // model units kept free around a label
+  const READABLE_PX = 11; // the smallest label size on screen, in CSS pixels
 
   function overlap(a, b, gap) {
     const w = Math.min(a.x2, b.x2) - Math.max(a.x1, b.x1) + gap;
@@ -185,6 +186,7 @@
       soft.push(best.box);
     });
     cy.container().dataset.crowdedLabels = String(crowded);
+    this.keepReadable(false);
   };
 
   function vertexLabel(id, s, t) {
@@ -241,9 +243,62 @@
     return out;
   };
 
+  /** Shows the graph: the whole of it if its labels stay readable that way, else as much as fits
+   *  with readable labels (see keepReadable), starting from its top left. */
   GraphView.prototype.fit = function () {
+    this.whole = false;
     this.cy.fit(undefined, 30 * (this.scale || 1));
     if (this.cy.zoom() > 1.6) { this.cy.zoom(1.6); this.cy.center(); }
+    this.keepReadable(true);
+  };
+
+  /** The whole graph in view however small its labels get, until the next fit(). */
+  GraphView.prototype.wholeGraph = function () {
+    this.whole = true;
+    this.cy.fit(undefined, 20 * (this.scale || 1));
+    this.cy.container().dataset.readable = "whole graph";
+    if (this.handlers.partial) this.handlers.partial(false);
+  };
+
+  /** The smallest label of the drawing in model units (edge labels as placed, vertex labels). */
+  GraphView.prototype.smallestLabel = function () {
+    let m = Infinity;
+    this.cy.edges().forEach(function (e) { if (e.data("shown")) m = Math.min(m, Number(e.data("fs")) || Infinity); });
+    this.cy.nodes().forEach(function (n) { if (n.data("label")) m = Math.min(m, px(n.style("font-size"), Infinity)); });
+    return m;
+  };
+
+  /**
+   * Zooms in (never out) until every label is at least READABLE_PX high on screen; the rest of the
+   * graph is then reached by dragging the background or the wheel, or "whole graph". After a fit
+   * the view starts at the graph's top left (centred along a side that fits), where a tree's root
+   * and a left-to-right network's s are. Skipped above 400 edges (labels off anyway), or after
+   * wholeGraph().
+   */
+  GraphView.prototype.keepReadable = function (fromFit) {
+    const cy = this.cy;
+    if (this.whole || !cy.nodes().length || cy.edges().length > 400 || !(cy.width() > 0)) return;
+    const smallest = this.smallestLabel();
+    if (!isFinite(smallest)) return;
+    const need = Math.min(cy.maxZoom(), READABLE_PX / smallest);
+    const self_ = this;
+    const mark = function () {
+      const r = cy.elements().renderedBoundingBox({ includeLabels: true, includeOverlays: false });
+      const whole = r.x1 >= -1 && r.y1 >= -1 && r.x2 <= cy.width() + 1 && r.y2 <= cy.height() + 1;
+      cy.container().dataset.readable = whole ? "fits" : "part";
+      if (self_.handlers.partial) self_.handlers.partial(!whole);
+    };
+    if (cy.zoom() >= need - 1e-9) { mark(); return; }
+    if (fromFit) {
+      const bb = cy.elements().boundingBox({ includeLabels: true, includeOverlays: false });
+      const W = cy.width(), H = cy.height(), pad = 16 * (this.scale || 1);
+      const x = bb.w * need + 2 * pad <= W ? (W - bb.w * need) / 2 - bb.x1 * need : pad - bb.x1 * need;
+      const y = bb.h * need + 2 * pad <= H ? (H - bb.h * need) / 2 - bb.y1 * need : pad - bb.y1 * need;
+      cy.viewport({ zoom: need, pan: { x: x, y: y } });
+    } else {
+      cy.zoom({ level: need, renderedPosition: { x: cy.width() / 2, y: cy.height() / 2 } });
+    }
+    mark();
   };
 
   /** Clears focus styling: every edge solid with its condition label. */

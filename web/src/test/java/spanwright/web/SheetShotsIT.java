@@ -65,6 +65,8 @@ class SheetShotsIT {
         assertTrue(page.$("opt-compare").isDisplayed());
         page.screenshot("weights-present-1280x720");
         mode("edit");
+        // In the shorter results panel the button may sit under the sticky caution: bring it up.
+        page.js("arguments[0].scrollIntoView({block: 'center'});", page.$("opt-discard"));
         page.$("opt-discard").click();
         key("s");
     }
@@ -172,6 +174,74 @@ class SheetShotsIT {
         assertTrue(editHelp.contains("new scenario") && editHelp.contains("pasted link"), editHelp);
         key("?");
         key("s");
+    }
+
+    /** Every label of the drawing (edge labels as placed, vertex labels) is at least 11 px on screen:
+     *  font size times zoom, and the edge label's rendered box at least 11 px high. */
+    private void assertLabelsReadable(String what) {
+        Object small = page.js("var cy = window.SpanwrightView.cy, z = cy.zoom(), out = [];"
+                + " var lb = {includeNodes:false, includeEdges:false, includeLabels:true, includeMainLabels:true, includeSourceLabels:false, includeTargetLabels:false, includeOverlays:false, includeUnderlays:false, useCache:false};"
+                + " cy.edges().forEach(function (e) { if (!e.data('shown')) return; var fs = parseFloat(e.style('font-size')) * z, h = e.renderedBoundingBox(lb).h;"
+                + "   if (fs < 11 - 1e-6 || h < 11) out.push(e.id() + ' ' + fs.toFixed(1) + 'px/' + h.toFixed(1) + 'px'); });"
+                + " cy.nodes().forEach(function (n) { var fs = parseFloat(n.style('font-size')) * z; if (fs < 11 - 1e-6) out.push(n.id() + ' ' + fs.toFixed(1) + 'px'); });"
+                + " return out.join('; ');");
+        assertEquals("", small, "labels under 11 px on screen: " + what);
+    }
+
+    /** Issue: the network had a third of the width and fitted large graphs to 5-px labels. */
+    @Test
+    void theDrawingGetsMostOfTheWidthWithReadableLabels() throws IOException {
+        mode("edit");
+        double share = ((Number) page.js("return document.getElementById('network-panel').getBoundingClientRect().width / window.innerWidth;")).doubleValue();
+        assertTrue(share >= 0.55, "network panel share of the width: " + share);
+        key("d");
+        page.waitFor("wide drawing", WAIT, () -> ((Number) page.js("return document.getElementById('network-panel').getBoundingClientRect().width / window.innerWidth;")).doubleValue() > 0.95);
+        assertFalse(page.$("summary-panel").isDisplayed(), "side panels hidden");
+        key("d");
+        page.waitFor("side panels back", WAIT, () -> page.$("summary-panel").isDisplayed());
+
+        int serial = page.serial();
+        page.js("var g = document.getElementById('gallery'); for (var i = 1; i < g.options.length; i++) if (/sign-off/.test(g.options[i].textContent)) g.value = g.options[i].value;"
+                + " g.dispatchEvent(new Event('change'));");
+        page.waitForAnalysis(serial, WAIT);
+        assertTrue(String.valueOf(page.js("return window.Spanwright.scenarioText();")).contains("sign-off") || String.valueOf(page.js("return window.Spanwright.scenarioText();")).contains("Sign-off"), "the sign-off tree is open");
+        assertLabelsReadable("sign-off tree");
+        for (String k : new String[] {"1", "0"}) {
+            page.js("document.body.dataset.focusDrawn = '';");
+            key(k);
+            page.waitFor("focus drawn", WAIT, () -> !"".equals(page.js("return document.body.dataset.focusDrawn || '';")));
+            assertLabelsReadable("sign-off tree, key " + k);
+        }
+        page.js("return new Promise(function (r) { setTimeout(r, 300); });");
+        page.screenshot("sign-off-tree-1280x720");
+
+        key("n");
+        page.waitFor("dialog open", WAIT, () -> page.$("builder").isDisplayed());
+        page.driver.findElement(By.cssSelector("input[name=bkind][value=host]")).click();
+        page.js("var f = document.getElementById('b-family'); f.value = 'grid'; f.dispatchEvent(new Event('change'));"
+                + " ['b-size1', 'b-size2'].forEach(function (id, i) { var e = document.getElementById(id); e.value = i ? '4' : '3';"
+                + "   e.dispatchEvent(new Event('input')); e.dispatchEvent(new Event('change')); });");
+        page.waitFor("3x4 grid previewed", WAIT, () -> String.valueOf(page.js("return document.getElementById('builder').dataset.request;")).contains("[3,4]")
+                && "built".equals(page.js("return document.getElementById('builder').dataset.preview;")));
+        serial = page.serial();
+        page.$("builder-create").click();
+        page.waitForAnalysis(serial, WAIT);
+        assertLabelsReadable("3x4 grid");
+        page.js("document.body.dataset.focusDrawn = '';");
+        key("1");
+        page.waitFor("focus drawn", WAIT, () -> !"".equals(page.js("return document.body.dataset.focusDrawn || '';")));
+        assertLabelsReadable("3x4 grid, worst positive");
+        page.js("return new Promise(function (r) { setTimeout(r, 300); });");
+        page.screenshot("grid-3x4-1280x720");
+        mode("present");
+        assertLabelsReadable("3x4 grid, presentation mode");
+        page.screenshot("grid-3x4-present-1280x720");
+        mode("edit");
+        // The other tests here expect the default scenario.
+        serial = page.serial();
+        page.js("var g = document.getElementById('gallery'); for (var i = 1; i < g.options.length; i++) if (/\\(default\\.json\\)/.test(g.options[i].textContent)) g.value = g.options[i].value;"
+                + " g.dispatchEvent(new Event('change'));");
+        page.waitForAnalysis(serial, WAIT);
     }
 
     @Test
