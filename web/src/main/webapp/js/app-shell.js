@@ -78,7 +78,7 @@
   /** Scrolls the visible result sheet by steps of an eighth of its height (8 steps: one height),
    *  so an overflowing sheet can be read from the keyboard while the arrows step through inputs. */
   function scrollSheet(steps) {
-    const sheet = $("sheet-" + currentSheet);
+    const sheet = document.querySelector("#sheet-" + currentSheet + " .sheet-scroll");
     if (!sheet) return;
     sheet.scrollBy({ top: steps * Math.max(40, Math.round(sheet.clientHeight / 8)), behavior: "instant" });
     document.body.dataset.sheetScroll = String(Math.round(sheet.scrollTop));

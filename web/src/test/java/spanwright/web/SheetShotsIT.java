@@ -65,8 +65,6 @@ class SheetShotsIT {
         assertTrue(page.$("opt-compare").isDisplayed());
         page.screenshot("weights-present-1280x720");
         mode("edit");
-        // In the shorter results panel the button may sit under the sticky caution: bring it up.
-        page.js("arguments[0].scrollIntoView({block: 'center'});", page.$("opt-discard"));
         page.$("opt-discard").click();
         key("s");
     }
@@ -151,14 +149,14 @@ class SheetShotsIT {
         key("r");
         page.waitFor("simulated", WAIT, () -> "ready".equals(page.js("return document.body.dataset.simulation;")));
         page.js("return new Promise(function (r) { setTimeout(r, 300); });");
-        Object overflow = page.js("var s = document.getElementById('sheet-run'); s.scrollTop = 0; return s.scrollHeight - s.clientHeight;");
+        Object overflow = page.js("var s = document.querySelector('#sheet-run .sheet-scroll'); s.scrollTop = 0; return s.scrollHeight - s.clientHeight;");
         assertTrue(((Number) overflow).intValue() > 0, "the run sheet overflows at 1280x720 in presentation mode");
         key(Keys.chord(Keys.SHIFT, Keys.ARROW_DOWN));
-        page.waitFor("sheet scrolled", WAIT, () -> ((Number) page.js("return document.getElementById('sheet-run').scrollTop;")).intValue() > 0);
+        page.waitFor("sheet scrolled", WAIT, () -> ((Number) page.js("return document.querySelector('#sheet-run .sheet-scroll').scrollTop;")).intValue() > 0);
         key(Keys.chord(Keys.SHIFT, Keys.PAGE_DOWN));
         key(Keys.chord(Keys.SHIFT, Keys.PAGE_UP));
         key(Keys.chord(Keys.SHIFT, Keys.ARROW_UP));
-        page.waitFor("sheet back at the top", WAIT, () -> ((Number) page.js("return document.getElementById('sheet-run').scrollTop;")).intValue() == 0);
+        page.waitFor("sheet back at the top", WAIT, () -> ((Number) page.js("return document.querySelector('#sheet-run .sheet-scroll').scrollTop;")).intValue() == 0);
         assertEquals(focused, String.valueOf(page.js("return window.Spanwright.focus();")), "scrolling leaves the input in focus");
 
         // The help lists what works here: no N (new scenario) or L (open link) in presentation mode.
