@@ -180,23 +180,80 @@
     F.download(F.fileName(state.scenario.title, ".json"), new Blob([JSON.stringify(state.scenario, null, 2) + "\n"], { type: "application/json" }));
   });
 
-  $("export-csv").addEventListener("click", function () {
-    const a = state.analysis;
-    if (!a) { P.notify("Nothing to export yet: the analysis has not finished.", "info"); return; }
-    const lines = ["x,f,connected,kind,value,counterexample"];
+  /** A CSV field: quoted when it holds a comma, a quote or a line break. */
+  function csvField(v) {
+    const t = String(v);
+    return /[",\r\n]/.test(t) ? '"' + t.replace(/"/g, '""') + '"' : t;
+  }
+  function oneLine(t) { return String(t).replace(/[\r\n]+/g, " "); }
+
+  /** The inputs as CSV: a header block of comment lines (#: title, the normalisation, the bound
+   *  as the Summary shows it, every edge with its condition and weight), then one row per input
+   *  with the input string, one column per variable, f, s~t, R or C and whether it is a
+   *  counterexample. */
+  function inputsCsv() {
+    const a = state.analysis, sc = state.scenario;
+    const lines = ["# Spanwright inputs: " + oneLine(sc.title || "Untitled scenario"),
+      "# normalisation: weight = resistance, each edge counted once (present edge: resistor w; absent edge: capacitor 1/w)",
+      "# " + boundText()];
+    lines.push("# weights (resistance), one edge a line: id, ends, present when, weight");
+    sc.graph.edges.forEach(function (e) {
+      lines.push("# edge " + oneLine(e.id) + ", " + oneLine(e.u) + " - " + oneLine(e.v) + ", " + oneLine(e.when) + ", " + String(e.weight === undefined || e.weight === null ? 1 : e.weight));
+    });
+    const fixed = ["x", "f", "connected", "kind", "value", "counterexample"];
+    const varCols = sc.variables.map(function (v) { return fixed.indexOf(String(v)) >= 0 ? "var " + v : String(v); });
+    lines.push(["x"].concat(varCols, ["f", "connected", "kind", "value", "counterexample"]).map(csvField).join(","));
     for (let i = 0; i < a.n; i++) {
       const fl = a.flags[i];
-      lines.push(P.xOf(a.codes[i]) + "," + ((fl & 2) ? ((fl & 4) ? "1" : "0") : "") + "," + ((fl & 1) ? "true" : "false") + "," +
-        ((fl & 1) ? "R" : "C") + "," + String(a.values[i]) + "," + (P.isBad(fl) ? "true" : "false"));
+      const x = P.xOf(a.codes[i]);
+      lines.push([x].concat(x.split(""), [(fl & 2) ? ((fl & 4) ? "1" : "0") : "", (fl & 1) ? "true" : "false",
+        (fl & 1) ? "R" : "C", String(a.values[i]), P.isBad(fl) ? "true" : "false"]).join(","));
     }
-    F.download(F.fileName(state.scenario.title, "-inputs.csv"), new Blob([lines.join("\n") + "\n"], { type: "text/csv" }));
+    return lines.join("\n") + "\n";
+  }
+
+  /** The bound as the Summary shows it, with W+ and W-, and its standing when f is not decided. */
+  function boundText() {
+    const t = function (id) { return $(id).textContent.trim() || "–"; };
+    const wrong = $("verdict").dataset.correct === "no";
+    return "bound √(W₊·W₋) = " + t("sum-bound") + " (W₊ = max R = " + t("sum-wplus") + ", W₋ = max C = " + t("sum-wminus") + ")" +
+      (wrong ? " — not a bound for f: the graph does not decide f on every input (see the Summary)" : "");
+  }
+
+  /** The caption lines of an exported figure: title, the input in focus and its R or C, the
+   *  bound, the normalisation and the caution — the numbers as the page shows them. */
+  function figureCaption() {
+    const a = state.analysis, sc = state.scenario;
+    const lines = [{ role: "title", text: oneLine(sc.title || "Untitled scenario") }];
+    if (a && state.focus >= 0) {
+      const i = state.focus, fl = a.flags[i], x = P.xOf(a.codes[i]);
+      lines.push({ role: "input", text: "input x = " + x + "  (" + sc.variables.map(function (v, k) { return v + "=" + x.charAt(k); }).join(" ") + ")" });
+      lines.push({ role: "value", text: ((fl & 1) ? "positive, s and t connected: effective resistance R = " : "negative, s and t apart: effective capacitance C = ") + F.num(a.values[i]) +
+        ((fl & 2) ? ";  f(x) = " + ((fl & 4) ? 1 : 0) : "") + (P.isBad(fl) ? " — a counterexample" : "") });
+    } else {
+      lines.push({ role: "input", text: "no input in focus: every edge drawn with its condition" });
+    }
+    if (a) lines.push({ role: "bound", text: boundText() });
+    lines.push({ role: "normalisation", text: "Normalisation: weight = resistance, each edge counted once (present edge: resistor w; absent edge: capacitor 1/w)." });
+    lines.push({ role: "caution", text: "An asymptotic query-complexity bound for the span-program algorithm, not a run-time estimate for real hardware." });
+    return lines;
+  }
+
+  $("export-csv").addEventListener("click", function () {
+    if (!state.analysis) { P.notify("Nothing to export yet: the analysis has not finished.", "info"); return; }
+    F.download(F.fileName(state.scenario.title, "-inputs.csv"), new Blob([inputsCsv()], { type: "text/csv" }));
   });
 
   $("export-png").addEventListener("click", function () {
-    F.download(F.fileName(state.scenario.title, ".png"), P.drawing.png());
+    P.drawing.png(figureCaption()).then(function (r) {
+      const b = $("export-png");
+      b.dataset.size = r.width + "x" + r.height;
+      b.dataset.drawingHeight = String(r.drawingHeight);
+      F.download(F.fileName(state.scenario.title, ".png"), r.blob);
+    }).catch(function (e) { P.notify("Could not make the PNG: " + (e && e.message ? e.message : e), "error"); });
   });
   $("export-svg").addEventListener("click", function () {
-    const text = P.drawing.svg(state.scenario.title);
+    const text = P.drawing.svg(state.scenario.title, figureCaption());
     $("export-svg").dataset.chars = String(text.length);
     F.download(F.fileName(state.scenario.title, ".svg"), new Blob([text], { type: "image/svg+xml" }));
   });

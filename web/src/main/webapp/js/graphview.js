@@ -304,6 +304,7 @@
   /** Clears focus styling: every edge solid with its condition label. */
   GraphView.prototype.clearFocus = function () {
     const cy = this.cy;
+    this.focusInfo = null;
     cy.batch(function () {
       cy.edges().removeClass("absent flow fwd back").forEach(function (e) { e.data("label", e.data("base")); });
       cy.nodes().removeClass("ramp");
@@ -372,12 +373,157 @@
       });
     });
     this.placeLabels();
-    return { useRamp: useRamp, pmin: pmin, pmax: pmax, positive: positive };
+    this.focusInfo = { useRamp: useRamp, pmin: pmin, pmax: pmax, positive: positive, flow: positive && view !== "potential" };
+    return this.focusInfo;
   };
 
-  GraphView.prototype.png = function () {
-    return this.cy.png({ full: true, scale: 2, bg: "#ffffff" });
+  /**
+   * The caption and colour key of an exported figure, as items in figure units (one unit = one
+   * model unit of the drawing), the same for the SVG and the PNG: the page's caption lines
+   * ({role, text}: title, input, value, bound, normalisation, caution), then a key of what the
+   * drawing uses: the line colour of each kind of literal present, dashed absent edges and the
+   * current's width and arrow when an input is in focus, the shapes of s and t, and the potential
+   * ramp with its end values when vertices are coloured. Returns {items, width, height}.
+   */
+  GraphView.prototype.captionLayout = function (lines, minWidth) {
+    const items = [];
+    const size = 13, lh = 19;
+    const est = function (t, sz) { return String(t).length * 0.56 * sz; };
+    let y = 6, width = minWidth;
+    (lines || []).forEach(function (l) {
+      const sz = l.role === "title" ? 16 : size;
+      y += l.role === "title" ? 22 : lh;
+      items.push({ kind: "text", x: 0, y: y, text: l.text, size: sz, bold: l.role === "title" || l.role === "value", role: l.role, group: "caption" });
+      width = Math.max(width, est(l.text, sz));
+    });
+    const colours = {};
+    this.cy.edges().forEach(function (e) { colours[e.data("color")] = true; });
+    const info = this.focusInfo;
+    const entries = [];
+    if (colours[COLOR_POS]) entries.push({ key: "literal", line: COLOR_POS, text: "literal a: present when a = 1" });
+    if (colours[COLOR_NEG]) entries.push({ key: "negated", line: COLOR_NEG, text: "negated literal !a: present when a = 0" });
+    if (colours[COLOR_ONE]) entries.push({ key: "always", line: COLOR_ONE, text: "always present (1)" });
+    if (info) entries.push({ key: "absent", line: COLOR_ABSENT, dash: true, text: "dashed: absent in G(x)" });
+    if (info && info.flow) entries.push({ key: "current", line: COLOR_POS, thick: true, text: "width ∝ |current|, arrow: direction of the unit current s→t" });
+    entries.push({ key: "s", shape: "diamond", text: "s (source)" }, { key: "t", shape: "rect", text: "t (sink)" });
+    y += 14;
+    let x = 0, rowTop = y;
+    entries.forEach(function (en) {
+      const w = 34 + est(en.text, 12) + 18;
+      if (x > 0 && x + w > width) { x = 0; rowTop += 22; }
+      const cy_ = rowTop + 8;
+      if (en.line) items.push({ kind: "line", x1: x, y1: cy_, x2: x + 28, y2: cy_, color: en.line, width: en.thick ? 7 : 2.5, dash: !!en.dash, arrow: !!en.thick, key: en.key, group: "key" });
+      else items.push({ kind: "shape", shape: en.shape, x: x + 14, y: cy_, size: 14, key: en.key, group: "key" });
+      items.push({ kind: "text", x: x + 34, y: cy_ + 4, text: en.text, size: 12, key: en.key, group: "key" });
+      x += w;
+    });
+    y = rowTop + 22;
+    if (info && info.useRamp && isFinite(info.pmin)) {
+      const lo = "φ = " + F.num(info.pmin) + (info.positive ? "" : " (t side)");
+      const hi = "φ = " + F.num(info.pmax) + (info.positive ? "" : " (s side)");
+      items.push({ kind: "text", x: 0, y: y + 10, text: "vertex colour: potential", size: 12, key: "ramp", group: "key" });
+      const rx = est("vertex colour: potential", 12) + 10;
+      items.push({ kind: "text", x: rx, y: y + 10, text: lo, size: 12, key: "ramp-low", group: "key" });
+      const bx = rx + est(lo, 12) + 8;
+      items.push({ kind: "ramp", x: bx, y: y + 1, w: 160, h: 12, key: "ramp", group: "key" });
+      items.push({ kind: "text", x: bx + 168, y: y + 10, text: hi, size: 12, key: "ramp-high", group: "key" });
+      width = Math.max(width, bx + 168 + est(hi, 12));
+      y += 22;
+    }
+    return { items: items, width: width, height: y + 6 };
   };
+
+  function rampStops() {
+    const out = [];
+    for (let i = 0; i <= 10; i++) out.push({ at: i / 10, color: F.ramp(i / 10) });
+    return out;
+  }
+
+  /** The drawing as a PNG (twice the screen resolution) with the caption and colour key below;
+   *  a Promise of a Blob. */
+  GraphView.prototype.png = function (lines) {
+    const self_ = this;
+    const k = 2;
+    return this.cy.png({ full: true, scale: k, bg: "#ffffff", output: "blob-promise" }).then(function (blob) {
+      return createImageBitmap(blob);
+    }).then(function (img) {
+      const pad = 12;
+      const cap = self_.captionLayout(lines, (img.width / k) - 2 * pad);
+      const canvas = document.createElement("canvas");
+      canvas.width = Math.ceil(Math.max(img.width, (cap.width + 2 * pad) * k));
+      canvas.height = Math.ceil(img.height + (cap.height + pad) * k);
+      const ctx = canvas.getContext("2d");
+      ctx.fillStyle = "#ffffff";
+      ctx.fillRect(0, 0, canvas.width, canvas.height);
+      ctx.drawImage(img, 0, 0);
+      ctx.save();
+      ctx.translate(pad * k, img.height);
+      ctx.scale(k, k);
+      cap.items.forEach(function (it) { drawItem(ctx, it); });
+      ctx.restore();
+      canvas.dataset.captionTop = String(img.height);
+      return new Promise(function (resolve) { canvas.toBlob(function (b) { resolve({ blob: b, width: canvas.width, height: canvas.height, drawingHeight: img.height }); }, "image/png"); });
+    });
+  };
+
+  function shapePath(ctx, it) {
+    const h = it.size / 2;
+    ctx.beginPath();
+    if (it.shape === "diamond") { ctx.moveTo(it.x, it.y - h); ctx.lineTo(it.x + h, it.y); ctx.lineTo(it.x, it.y + h); ctx.lineTo(it.x - h, it.y); ctx.closePath(); }
+    else ctx.rect(it.x - h * 0.85, it.y - h * 0.85, h * 1.7, h * 1.7);
+  }
+
+  function drawItem(ctx, it) {
+    if (it.kind === "text") {
+      ctx.fillStyle = "#111111";
+      ctx.font = (it.bold ? "bold " : "") + it.size + "px system-ui, sans-serif";
+      ctx.textBaseline = "alphabetic";
+      ctx.fillText(it.text, it.x, it.y);
+    } else if (it.kind === "line") {
+      ctx.strokeStyle = it.color;
+      ctx.lineWidth = it.width;
+      ctx.setLineDash(it.dash ? [6, 5] : []);
+      ctx.beginPath(); ctx.moveTo(it.x1, it.y1); ctx.lineTo(it.arrow ? it.x2 - 6 : it.x2, it.y2); ctx.stroke();
+      ctx.setLineDash([]);
+      if (it.arrow) { ctx.fillStyle = it.color; ctx.beginPath(); ctx.moveTo(it.x2 + 2, it.y2); ctx.lineTo(it.x2 - 8, it.y2 - 7); ctx.lineTo(it.x2 - 8, it.y2 + 7); ctx.closePath(); ctx.fill(); }
+    } else if (it.kind === "shape") {
+      shapePath(ctx, it);
+      ctx.fillStyle = "#f4f4f4"; ctx.fill();
+      ctx.strokeStyle = "#333333"; ctx.lineWidth = 2; ctx.stroke();
+    } else if (it.kind === "ramp") {
+      const g = ctx.createLinearGradient(it.x, 0, it.x + it.w, 0);
+      rampStops().forEach(function (st) { g.addColorStop(st.at, st.color); });
+      ctx.fillStyle = g;
+      ctx.fillRect(it.x, it.y, it.w, it.h);
+      ctx.strokeStyle = "#555555"; ctx.lineWidth = 1; ctx.strokeRect(it.x, it.y, it.w, it.h);
+    }
+  }
+
+  /** One caption or key item as SVG (classes caption-line / key-swatch / key-text, never the
+   *  drawing's own classes). */
+  function svgItem(it, ox, oy) {
+    const x = function (v) { return r2(v + ox); }, y = function (v) { return r2(v + oy); };
+    const data = (it.role ? ' data-role="' + xml(it.role) + '"' : "") + (it.key ? ' data-key="' + xml(it.key) + '"' : "");
+    if (it.kind === "text") {
+      return '<text class="' + (it.group === "caption" ? "caption-line" : "key-text") + '"' + data + ' x="' + x(it.x) + '" y="' + y(it.y) + '" font-size="' + it.size +
+        '" font-family="system-ui, sans-serif" fill="#111111"' + (it.bold ? ' font-weight="bold"' : "") + ">" + xml(it.text) + "</text>";
+    }
+    if (it.kind === "line") {
+      let out = '<line class="key-swatch"' + data + ' x1="' + x(it.x1) + '" y1="' + y(it.y1) + '" x2="' + x(it.arrow ? it.x2 - 6 : it.x2) + '" y2="' + y(it.y2) + '" stroke="' + xml(it.color) +
+        '" stroke-width="' + it.width + '"' + (it.dash ? ' stroke-dasharray="6 5"' : "") + "/>";
+      if (it.arrow) out += '<polygon class="key-swatch"' + data + ' points="' + [it.x2 + 2, it.y2, it.x2 - 8, it.y2 - 7, it.x2 - 8, it.y2 + 7].map(function (v, i) { return i % 2 ? y(v) : x(v); }).join(" ") + '" fill="' + xml(it.color) + '"/>';
+      return out;
+    }
+    if (it.kind === "shape") {
+      const h = it.size / 2;
+      if (it.shape === "diamond") return '<polygon class="key-swatch"' + data + ' points="' + [x(it.x), y(it.y - h), x(it.x + h), y(it.y), x(it.x), y(it.y + h), x(it.x - h), y(it.y)].join(" ") + '" fill="#f4f4f4" stroke="#333333" stroke-width="2"/>';
+      return '<rect class="key-swatch"' + data + ' x="' + x(it.x - h * 0.85) + '" y="' + y(it.y - h * 0.85) + '" width="' + r2(h * 1.7) + '" height="' + r2(h * 1.7) + '" fill="#f4f4f4" stroke="#333333" stroke-width="2"/>';
+    }
+    if (it.kind === "ramp") {
+      return '<rect class="key-swatch"' + data + ' x="' + x(it.x) + '" y="' + y(it.y) + '" width="' + it.w + '" height="' + it.h + '" fill="url(#sw-ramp)" stroke="#555555" stroke-width="1"/>';
+    }
+    return "";
+  }
 
   function xml(t) {
     return String(t).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
@@ -413,15 +559,20 @@
    * boxes): Cytoscape.js has no SVG output of its own and the one SVG extension is GPL-licensed.
    * Every string from the scenario is escaped, so names stay text.
    */
-  GraphView.prototype.svg = function (title) {
+  GraphView.prototype.svg = function (title, lines) {
     const cy = this.cy;
     const bb = cy.elements().boundingBox({ includeLabels: true, includeOverlays: false });
     const pad = 12;
-    const x0 = bb.x1 - pad, y0 = bb.y1 - pad, w = Math.max(1, bb.w + 2 * pad), h = Math.max(1, bb.h + 2 * pad);
+    const cap = this.captionLayout(lines || [], bb.w);
+    const x0 = bb.x1 - pad, y0 = bb.y1 - pad, w = Math.max(1, Math.max(bb.w, cap.width) + 2 * pad), dh = Math.max(1, bb.h + 2 * pad);
+    const h = dh + cap.height + pad;
     const out = [];
     out.push('<svg xmlns="http://www.w3.org/2000/svg" viewBox="' + [x0, y0, w, h].map(r2).join(" ") + '" width="' + r2(w) + '" height="' + r2(h) + '">');
     if (title) out.push("<title>" + xml(title) + "</title>");
+    out.push('<defs><linearGradient id="sw-ramp">' + rampStops().map(function (st) { return '<stop offset="' + st.at + '" stop-color="' + st.color + '"/>'; }).join("") + "</linearGradient></defs>");
     out.push('<rect x="' + r2(x0) + '" y="' + r2(y0) + '" width="' + r2(w) + '" height="' + r2(h) + '" fill="#ffffff" class="background"/>');
+    out.push('<g class="caption">' + cap.items.filter(function (it) { return it.group === "caption"; }).map(function (it) { return svgItem(it, x0 + pad, y0 + dh); }).join("") + "</g>");
+    out.push('<g class="colour-key">' + cap.items.filter(function (it) { return it.group === "key"; }).map(function (it) { return svgItem(it, x0 + pad, y0 + dh); }).join("") + "</g>");
     const labels = [];
     cy.edges().forEach(function (e) {
       const a = e.sourceEndpoint(), b = e.targetEndpoint();

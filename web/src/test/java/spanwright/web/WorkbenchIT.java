@@ -466,6 +466,106 @@ class WorkbenchIT extends PageTestBase {
         for (Object v : vertices) {
             assertTrue(allText.contains(String.valueOf(((Map<String, Object>) v).get("id"))), "vertex label " + v);
         }
+
+        // The caption: title, the input, its C, the bound, the normalisation (issue: exports lacked context).
+        Map<String, String> caption = new java.util.HashMap<>();
+        org.w3c.dom.NodeList texts = svg.getElementsByTagNameNS("*", "text");
+        for (int i = 0; i < texts.getLength(); i++) {
+            org.w3c.dom.Element t = (org.w3c.dom.Element) texts.item(i);
+            if (t.getAttribute("class").equals("caption-line")) {
+                caption.put(t.getAttribute("data-role"), t.getTextContent());
+            }
+        }
+        assertEquals(doc.get("title"), caption.get("title"));
+        assertTrue(caption.get("input").contains("x = " + x), caption.get("input"));
+        String value = caption.get("value");
+        assertTrue(value.contains("effective capacitance C = "), value);
+        // Source: JsonFacade.analyze on the JVM, the worst negative input's C is W- (printed to 6 digits by the page).
+        assertEquals(side(expected, "negative", "maxCapacitance"), Double.parseDouble(value.replaceAll(".*C = ([-0-9.eE+]+).*", "$1")), 1e-5, value);
+        String bound = caption.get("bound");
+        assertEquals(((Number) expected.get("complexity")).doubleValue(), Double.parseDouble(bound.replaceAll(".*\\) = ([-0-9.eE+]+) .*", "$1")), 1e-5, bound);
+        assertTrue(caption.get("normalisation").contains("weight = resistance, each edge counted once"), caption.get("normalisation"));
+        assertTrue(caption.containsKey("caution"), "the caution is in the caption");
+        // The colour key names what the drawing uses: literal colours, dashed absent edges, s, t and the potential ramp.
+        List<String> keys = new java.util.ArrayList<>();
+        org.w3c.dom.NodeList all = svg.getElementsByTagNameNS("*", "*");
+        for (int i = 0; i < all.getLength(); i++) {
+            org.w3c.dom.Element e = (org.w3c.dom.Element) all.item(i);
+            if (e.getAttribute("class").equals("key-swatch")) {
+                keys.add(e.getAttribute("data-key"));
+            }
+        }
+        assertTrue(keys.containsAll(List.of("literal", "absent", "s", "t", "ramp")), "colour key: " + keys);
+    }
+
+    /** Issue: the PNG had no caption. The exported PNG is the drawing with a caption band below it
+     *  that has ink in it (dark pixels), so it is taller than the drawing alone. */
+    @Test
+    void theDrawingExportsAsPngWithACaption() {
+        page.openFresh(null);
+        page.$("worst-pos").click();
+        page.waitFor("worst positive drawn", WAIT, () -> page.js("return document.body.dataset.focusDrawn;") != null);
+        page.js("window.__png = null; window.SwFormat.download = function (name, blob) { createImageBitmap(blob).then(function (img) {"
+                + " var c = document.createElement('canvas'); c.width = img.width; c.height = img.height; var g = c.getContext('2d'); g.drawImage(img, 0, 0);"
+                + " var top = +document.getElementById('export-png').dataset.drawingHeight, d = g.getImageData(0, top, img.width, img.height - top).data, dark = 0;"
+                + " for (var i = 0; i < d.length; i += 4) if (d[i] + d[i + 1] + d[i + 2] < 200) dark++;"
+                + " window.__png = {name: name, width: img.width, height: img.height, top: top, dark: dark}; }); };");
+        page.$("export-png").click();
+        page.waitFor("PNG produced", WAIT, () -> page.js("return window.__png;") != null);
+        Map<?, ?> png = (Map<?, ?>) page.js("return window.__png;");
+        int height = ((Number) png.get("height")).intValue(), top = ((Number) png.get("top")).intValue();
+        assertTrue(top > 0 && height > top + 100, "caption band below the drawing: " + png);
+        assertTrue(((Number) png.get("dark")).intValue() > 2000, "the caption band has text in it: " + png);
+        assertTrue(String.valueOf(png.get("name")).endsWith(".png"), png.toString());
+    }
+
+    /** Issue: the inputs CSV had no title, no weights, no column per variable. */
+    @Test
+    @SuppressWarnings("unchecked")
+    void theInputsCsvHasAHeaderBlockAndAColumnPerVariable() throws IOException {
+        String text = scenarioFile("default.json");
+        Map<String, Object> expected = jvmResult(text);
+        Map<String, Object> doc = (Map<String, Object>) Json.parse(text);
+        List<Object> vars = (List<Object>) doc.get("variables");
+        List<Object> edges = (List<Object>) ((Map<String, Object>) doc.get("graph")).get("edges");
+        page.openFresh(null);
+        page.js("window.__csv = null; window.SwFormat.download = function (name, blob) { blob.text().then(function (t) { window.__csv = t; }); };");
+        page.$("export-csv").click();
+        page.waitFor("CSV produced", WAIT, () -> page.js("return window.__csv;") != null);
+        List<String> lines = List.of(((String) page.js("return window.__csv;")).split("\n"));
+        assertEquals("# Spanwright inputs: " + doc.get("title"), lines.get(0));
+        for (Object o : edges) {
+            Map<String, Object> e = (Map<String, Object>) o;
+            Object w = e.get("weight") == null ? 1 : e.get("weight");
+            String weight = w instanceof Number && ((Number) w).doubleValue() == Math.rint(((Number) w).doubleValue()) ? String.valueOf(((Number) w).longValue()) : String.valueOf(w);
+            String line = "# edge " + e.get("id") + ", " + e.get("u") + " - " + e.get("v") + ", " + e.get("when") + ", " + weight;
+            assertTrue(lines.contains(line), "weight line " + line);
+        }
+        int header = 0;
+        while (lines.get(header).startsWith("#")) {
+            header++;
+        }
+        List<String> columns = List.of(lines.get(header).split(","));
+        assertEquals("x", columns.get(0));
+        for (int k = 0; k < vars.size(); k++) {
+            assertEquals(vars.get(k), columns.get(1 + k), "a column per variable");
+        }
+        List<String> rows = lines.subList(header + 1, lines.size());
+        assertEquals(1 << vars.size(), rows.size(), "one row per input of the full cube");
+        int valueCol = columns.indexOf("value");
+        boolean seenWorst = false;
+        for (String row : rows) {
+            String[] c = row.split(",");
+            for (int k = 0; k < vars.size(); k++) {
+                assertEquals(String.valueOf(c[0].charAt(k)), c[1 + k], "variable column " + vars.get(k) + " of " + c[0]);
+            }
+            if (c[0].equals(worst(expected, "positive"))) {
+                // Source: JsonFacade.analyze on the JVM: the worst positive input's R is W+.
+                assertClose(side(expected, "positive", "maxResistance"), Double.parseDouble(c[valueCol]), "R of the worst positive input");
+                seenWorst = true;
+            }
+        }
+        assertTrue(seenWorst, "the worst positive input is a row");
     }
 
     /** Tag names of the SVG elements whose class list has {@code cls} (and the attribute, if given). */
