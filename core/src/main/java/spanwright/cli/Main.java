@@ -270,6 +270,9 @@ public final class Main {
         if (Double.isNaN(r.complexity())) {
             sb.append(" (undefined: ").append(r.positiveCount() == 0 ? "no positive inputs" : "no negative inputs").append(')');
         }
+        if (Boolean.FALSE.equals(r.correct())) {
+            sb.append(" — ").append(Analysis.notABound(Long.toString(r.counterexampleCount())));
+        }
         sb.append('\n');
         sb.append("  note: ").append(ResultJson.CONVENTION).append(".\n");
         sb.append("  caution: ").append(ResultJson.CAUTION).append(".\n");

@@ -4,6 +4,7 @@ import java.io.PrintStream;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import spanwright.analysis.Analysis;
 import spanwright.io.Json;
 import spanwright.facade.JsonFacade;
 import spanwright.io.NumberText;
@@ -74,7 +75,13 @@ final class OptimizeCommand {
             OutputFiles.write("optimize", output, ResultJson.withWeights(text, r.scenario));
         }
         if (json) {
-            out.println(Json.writePretty(ResultJson.optimization(r)).trim());
+            java.util.Map<String, Object> m = ResultJson.optimization(r);
+            String standing = Analysis.standing(r.scenario);
+            m.put("complexityIsBound", standing == null);
+            if (standing != null) {
+                m.put("complexityNote", standing);
+            }
+            out.println(Json.writePretty(m).trim());
         } else {
             out.print(summary(r, output));
         }
@@ -120,6 +127,10 @@ final class OptimizeCommand {
         }
         if (output != null) {
             sb.append("  written to ").append(output).append('\n');
+        }
+        String standing = Analysis.standing(sc);
+        if (standing != null) {
+            sb.append("  warning: the weights were chosen for a number that is ").append(standing).append(".\n");
         }
         sb.append("  note: a local optimum of a non-convex problem; try --starts K for more starts.\n");
         sb.append("  caution: ").append(ResultJson.CAUTION).append(".\n");

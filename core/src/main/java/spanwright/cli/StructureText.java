@@ -44,7 +44,9 @@ final class StructureText {
         side(sb, "negative", "W- = max C = ", r.negative());
         sb.append(Main.row("bound", 12, "sqrt(W+ W-) = " + (r.exact() ? NumberText.sig(r.complexity(), 10)
                 : "in [" + NumberText.sig(r.complexity(), 10) + ", " + NumberText.sig(Math.sqrt(r.positive().upper()
-                        * r.negative().upper()), 10) + "] (certified interval: a budget was reached)")));
+                        * r.negative().upper()), 10) + "] (certified interval: a budget was reached)")
+                + (Boolean.FALSE.equals(rd.correct()) ? " — " + Analysis.notABound(String.valueOf(rd.counterexamples()))
+                        : "")));
         sb.append(Main.row("how", 12, r.method()));
         sb.append("  note: ").append(Normalisation.CONVENTION).append(".\n");
         sb.append("  caution: ").append(Normalisation.CAUTION).append(".\n");

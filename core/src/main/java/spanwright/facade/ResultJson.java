@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
 import spanwright.analysis.InputDetail;
 import spanwright.model.Edge;
@@ -63,6 +64,11 @@ public final class ResultJson {
         neg.put("worst", r.worstNegative() < 0 ? Json.NULL : Inputs.format(r.worstNegative(), n));
         m.put("negative", neg);
         m.put("complexity", num(r.complexity()));
+        boolean wrong = Boolean.FALSE.equals(r.correct());
+        m.put("complexityIsBound", !wrong);
+        if (wrong) {
+            m.put("complexityNote", Analysis.notABound(Long.toString(r.counterexampleCount())));
+        }
         m.put("convention", CONVENTION);
         m.put("caution", CAUTION);
         List<Object> warnings = new ArrayList<Object>(sc.warnings());

@@ -40,6 +40,11 @@ public final class StructureJson {
         m.put("maxCapacitance", side(sc, r.negative()));
         m.put("complexity", ResultJson.num(r.complexity()));
         m.put("complexityUpper", ResultJson.num(Math.sqrt(r.positive().upper() * r.negative().upper())));
+        boolean wrong = Boolean.FALSE.equals(rd.correct());
+        m.put("complexityIsBound", !wrong);
+        if (wrong) {
+            m.put("complexityNote", Analysis.notABound(String.valueOf(rd.counterexamples())));
+        }
         m.put("exact", r.exact());
         m.put("convention", Normalisation.CONVENTION);
         m.put("caution", Normalisation.CAUTION);

@@ -1,0 +1,61 @@
+package spanwright.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.ByteArrayOutputStream;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import spanwright.io.Json;
+
+/**
+ * Where the graph does not decide f, √(W₊W₋) is shown as not a bound, in the text and the JSON,
+ * and the weight search warns. Derived: two parallel s–t edges switched by a and b connect s and t
+ * when a | b, so against f = a &amp; b they disagree on inputs 01 and 10 (2 counterexamples).
+ */
+class NotABoundTest {
+    @TempDir
+    Path dir;
+
+    private static final String WRONG = "{\"format\":\"spanwright-scenario\",\"version\":1,\"title\":\"wrong\","
+            + "\"variables\":[\"a\",\"b\"],\"function\":\"a & b\",\"graph\":{\"s\":\"s\",\"t\":\"t\",\"vertices\":"
+            + "[{\"id\":\"s\"},{\"id\":\"t\"}],\"edges\":[{\"u\":\"s\",\"v\":\"t\",\"when\":\"a\"},"
+            + "{\"u\":\"s\",\"v\":\"t\",\"when\":\"b\"}]}}";
+
+    private static String[] run(String... args) {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
+                new PrintStream(err, true, StandardCharsets.UTF_8));
+        return new String[] {Integer.toString(code), out.toString(StandardCharsets.UTF_8),
+            err.toString(StandardCharsets.UTF_8)};
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void aWrongReductionsBoundIsMarkedEverywhere() throws Exception {
+        Path f = dir.resolve("wrong.json");
+        Files.writeString(f, WRONG);
+        String[] text = run("analyze", f.toString());
+        assertEquals("1", text[0]);
+        assertTrue(text[1].contains("not a bound for f: the graph does not decide f on 2 input(s)"), text[1]);
+        String[] json = run("analyze", f.toString(), "--json");
+        Map<String, Object> m = (Map<String, Object>) Json.parse(json[1]);
+        assertEquals(Boolean.FALSE, m.get("complexityIsBound"));
+        assertTrue(String.valueOf(m.get("complexityNote")).contains("2 input(s)"));
+        String[] opt = run("optimize", f.toString(), "--starts", "1");
+        assertTrue(opt[1].contains("warning: the weights were chosen for a number that is not a bound"), opt[1]);
+        // a correct reduction carries no such mark
+        Path right = dir.resolve("right.json");
+        Files.writeString(right, WRONG.replace("a & b", "a | b"));
+        Map<String, Object> ok = (Map<String, Object>) Json.parse(run("analyze", right.toString(), "--json")[1]);
+        assertEquals(Boolean.TRUE, ok.get("complexityIsBound"));
+        assertFalse(run("analyze", right.toString())[1].contains("not a bound"));
+    }
+}
