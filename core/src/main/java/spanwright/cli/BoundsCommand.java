@@ -32,7 +32,7 @@ final class BoundsCommand {
     private BoundsCommand() {}
 
     static String usage() {
-        return "  bounds FILE [--json] | bounds --bench [--seed S] [--large] | bounds --doc-table FILE...\n"
+        return "  bounds [FILE] [--json] | bounds --bench [--seed S] [--large] | bounds --doc-table FILE...\n"
                 + "      Lower bounds for the scenario's function: the general adversary ADV+- (an SDP, with its\n"
                 + "      certified interval; up to " + GeneralAdversary.CLI_MAX_VARIABLES
                 + " variables, minutes beyond 6), the positive adversary ADV, and D, C0, C1,\n"
@@ -87,9 +87,7 @@ final class BoundsCommand {
             docTable(files, out);
             return Main.OK;
         }
-        if (file == null) {
-            throw new Main.UsageException("bounds: give a scenario FILE (usage: bounds FILE [--json])");
-        }
+        // with no FILE, the built-in default scenario, as analyze, optimize and simulate do
         Scenario sc = ScenarioReader.read(Main.readScenarioText(file));
         for (String w : sc.warnings()) {
             err.println("spanwright: warning: " + w);

@@ -51,8 +51,17 @@ public final class Main {
             return OK;
         }
         List<String> rest = new ArrayList<>(List.of(args).subList(1, args.length));
+        // the prose of the docs uses British spellings too
+        String command = args[0].equals("analyse") ? "analyze" : args[0].equals("optimise") ? "optimize" : args[0];
+        if (rest.contains("--help") || rest.contains("-h")) {
+            String help = commandHelp(command);
+            if (help != null) {
+                out.print(help);
+                return OK;
+            }
+        }
         try {
-            switch (args[0]) {
+            switch (command) {
                 case "analyze":
                     return analyze(rest, out, err);
                 case "optimize":
@@ -88,6 +97,26 @@ public final class Main {
                 : e instanceof OutOfMemoryError ? "out of memory (try a smaller input, or more memory with java -Xmx…)"
                 : String.valueOf(e).replace('\n', ' ');
         return "internal error: " + what + "; please report it with the command and its input files";
+    }
+
+    /**
+     * The part of {@link #usage} about {@code command}: its lines (two-space indent) and their
+     * explanation (deeper indent), or null for an unknown command.
+     */
+    static String commandHelp(String command) {
+        StringBuilder sb = new StringBuilder();
+        boolean in = false;
+        for (String line : usage().split("\n")) {
+            if (line.startsWith("  ") && !line.startsWith("   ")) {
+                in = line.startsWith("  " + command + " ") || line.equals("  " + command);
+            } else if (!line.startsWith("   ")) {
+                in = false;
+            }
+            if (in) {
+                sb.append(line).append('\n');
+            }
+        }
+        return sb.length() == 0 ? null : "usage: java -jar spanwright.jar " + command + " …\n" + sb;
     }
 
     static String usage() {

@@ -58,4 +58,19 @@ class NotABoundTest {
         assertEquals(Boolean.TRUE, ok.get("complexityIsBound"));
         assertFalse(run("analyze", right.toString())[1].contains("not a bound"));
     }
+
+    @Test
+    void perCommandHelpBritishSpellingsAndBoundsWithNoFile() {
+        // Common practice, no source: `COMMAND --help` shows that command's part of the usage.
+        String[] help = run("sweep", "--help");
+        assertEquals("0", help[0]);
+        assertTrue(help[1].contains("sweep FAMILY|FILE.json"), help[1]);
+        assertFalse(help[1].contains("simulate"), help[1]);
+        assertEquals("0", run("analyse", "--help")[0]);
+        String[] opt = run("optimise", "--starts", "1");
+        assertEquals("0", opt[0], opt[2]);
+        String[] bounds = run("bounds");
+        assertEquals("0", bounds[0], bounds[2]);
+        assertTrue(bounds[1].contains("Greenhouse"), bounds[1]);
+    }
 }
