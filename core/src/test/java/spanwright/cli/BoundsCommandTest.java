@@ -94,7 +94,7 @@ class BoundsCommandTest {
         MainTest.Run r = MainTest.run("bounds", file.toString());
         assertEquals(Main.INVALID, r.status);
         assertTrue(r.err.contains("$.function") && r.err.contains("no-function"), r.err);
-        assertTrue(MainTest.run("help").out.contains("bounds FILE"));
+        assertTrue(MainTest.run("help").out.contains("bounds [FILE]"));
     }
 
     @Test
