@@ -117,7 +117,10 @@ public final class Analysis {
         }
     }
 
-    /** Analyses the whole domain. Cost: |domain| × O(|E| + |V|³). */
+    /**
+     * Analyses the whole domain. Cost: |domain| × one {@link ElectricalNetwork#evaluate}
+     * (O(|V| + |E|) plus the elimination of the s–t part).
+     */
     public static AnalysisResult run(Scenario scenario) {
         AnalysisRun r = start(scenario);
         r.step(Long.MAX_VALUE);
@@ -133,7 +136,8 @@ public final class Analysis {
      * The {@link Summary} of the inputs with ordinals [from, to) of the scenario's domain (input
      * order), with fixed-bin histograms. Summaries of adjacent ranges merge exactly
      * ({@link Summary#merge}), so a domain can be split across threads or machines. Memory
-     * O(|V|² + bins), independent of the range's length; cost (to − from) × O(|E| + |V|³).
+     * O(|V| + |E| + bins) plus the elimination's work arrays, independent of the range's length;
+     * cost (to − from) evaluations.
      *
      * @throws IllegalArgumentException when the range is not inside the domain
      */

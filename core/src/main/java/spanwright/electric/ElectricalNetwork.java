@@ -27,8 +27,14 @@ import spanwright.model.Scenario;
  * source and ground. The elimination is done in conductance form (star–mesh transform, as in the
  * Grassmann–Taksar–Heyman algorithm for Markov chains), which adds only non-negative numbers and so
  * keeps full relative accuracy even when weights differ by many orders of magnitude. No solve is
- * needed for the value; O(m³/6) flops for m network nodes, O(|E| α(|V|)) for the components. The
- * elimination is written here (not taken from EJML) because the dimension changes from input to
+ * needed for the value. Only the part that matters is eliminated: s's component of G(x) (positive
+ * input) or the contracted classes joined to s's class by absent edges (negative input); its m nodes
+ * get local indices, so vertices elsewhere (isolated ones, other components) cost O(1) each. Up to
+ * {@link #DENSE_LIMIT} nodes the local network is a dense m × m matrix (O(m³/6) flops); beyond, it
+ * is kept as adjacency lists and eliminated in minimum-degree order (the same star–mesh updates, so
+ * the same accuracy): memory and time O(m + links + fill), which is O(|V| + |E|) for trees,
+ * series–parallel graphs and other graphs of small tree-width, and never |V|². O(|E| α(|V|)) for
+ * the components. The elimination is written here (not taken from EJML) because the dimension changes from input to
  * input, the hot loop must not allocate, and a general Cholesky loses relative accuracy through
  * cancellation on ill-conditioned networks; the tests check it against EJML's pseudo-inverse.
  *
@@ -45,14 +51,35 @@ public final class ElectricalNetwork {
     private final double[] conductance;
     private final double[] resistance;
 
-    // work arrays, reused
+    // work arrays, reused: O(|V|) ones sized once, the local network's ones grown on demand
     private final int[] parent;
     private final int[] parent2;
     private final int[] local;
-    private final double[] matrix;
     private final double[] ground;
     private final double[] pivot;
     private final double[] column;
+    /** Dense local matrix (m × m, lower triangle), grown to the largest m ≤ denseLimit seen. */
+    private double[] matrix = new double[0];
+    /** Networks with more than this many nodes are eliminated in sparse form. */
+    private int denseLimit = DENSE_LIMIT;
+    /** Whether the network last built is held in sparse form. */
+    private boolean sparse;
+    /** Sparse form: node i's links are (adjNode[i][k], adjConductance[i][k]) for k &lt; degree[i]. */
+    private int[][] adjNode = new int[0][];
+    private double[][] adjConductance = new double[0][];
+    private int[] degree = new int[0];
+    /** Sparse form: elimination order, scatter map (−1 = absent), eliminated marks, min-degree heap. */
+    private int[] order = new int[0];
+    private int[] position = new int[0];
+    private boolean[] eliminated = new boolean[0];
+    private long[] heap = new long[16];
+
+    /**
+     * Local networks of at most this many nodes are eliminated as a dense m × m matrix (fastest for
+     * the small networks of enumeration); larger ones in sparse form with a minimum-degree order, so
+     * memory is O(nodes + links + fill) instead of O(m²) and no index can overflow.
+     */
+    static final int DENSE_LIMIT = 64;
 
     /** A network on {@code scenario}'s graph and weights; self-loops are ignored. */
     public ElectricalNetwork(Scenario scenario) {
@@ -82,7 +109,6 @@ public final class ElectricalNetwork {
         parent = new int[vertexCount];
         parent2 = new int[vertexCount];
         local = new int[vertexCount];
-        matrix = new double[vertexCount * vertexCount];
         ground = new double[vertexCount];
         pivot = new double[vertexCount];
         column = new double[vertexCount];
@@ -282,8 +308,32 @@ public final class ElectricalNetwork {
     }
 
     private void clear(int m) {
-        Arrays.fill(matrix, 0, m * m, 0.0);
         Arrays.fill(ground, 0, m, 0.0);
+        sparse = m > denseLimit;
+        if (!sparse) {
+            if (matrix.length < m * m) {
+                matrix = new double[m * m];
+            }
+            Arrays.fill(matrix, 0, m * m, 0.0);
+            return;
+        }
+        if (degree.length < m) {
+            int cap = Math.max(m, Math.min(vertexCount, 2 * degree.length));
+            adjNode = Arrays.copyOf(adjNode, cap);
+            adjConductance = Arrays.copyOf(adjConductance, cap);
+            degree = new int[cap];
+            order = new int[cap];
+            position = new int[cap];
+            eliminated = new boolean[cap];
+            Arrays.fill(position, -1);
+        }
+        Arrays.fill(degree, 0, m, 0);
+        Arrays.fill(eliminated, 0, m, false);
+    }
+
+    /** Testing hook: eliminate networks of more than {@code nodes} nodes in sparse form. */
+    void denseLimit(int nodes) {
+        denseLimit = nodes;
     }
 
     /**
@@ -291,7 +341,12 @@ public final class ElectricalNetwork {
      * the lower triangle, conductance to ground in {@link #ground}.
      */
     private void stamp(int a, int b, double g, int m) {
-        if (a >= 0 && b >= 0) {
+        if (sparse && a >= 0 && b >= 0) {
+            if (a != b) {
+                append(a, b, g);
+                append(b, a, g);
+            }
+        } else if (a >= 0 && b >= 0) {
             if (a > b) {
                 matrix[a * m + b] += g;
             } else if (b > a) {
@@ -314,6 +369,9 @@ public final class ElectricalNetwork {
      * conductance between the source and ground. O(m³/6).
      */
     private double eliminate(int m) {
+        if (sparse) {
+            return eliminateSparse(m);
+        }
         double[] c = matrix;
         double[] col = column;
         for (int k = 0; k < m - 1; k++) {
@@ -346,6 +404,169 @@ public final class ElectricalNetwork {
         return ground[m - 1];
     }
 
+
+    // ------------------------------------------------------------- sparse form
+
+    /** Appends the link (a → b, conductance g) to a's list; duplicates are merged later. */
+    private void append(int a, int b, double g) {
+        int d = degree[a];
+        int[] nb = adjNode[a];
+        if (nb == null || d == nb.length) {
+            int cap = nb == null ? 4 : 2 * nb.length;
+            adjNode[a] = nb = nb == null ? new int[cap] : Arrays.copyOf(nb, cap);
+            adjConductance[a] = adjConductance[a] == null ? new double[cap] : Arrays.copyOf(adjConductance[a], cap);
+        }
+        nb[d] = b;
+        adjConductance[a][d] = g;
+        degree[a] = d + 1;
+    }
+
+    /**
+     * Compacts node a's list in place: links to eliminated nodes dropped, parallel links merged
+     * (conductances added, in list order). Leaves {@link #position} set for a's neighbours, to be
+     * cleared by {@link #unscatter}. O(degree).
+     */
+    private void scatter(int a) {
+        int[] nb = adjNode[a];
+        double[] cond = adjConductance[a];
+        int d = degree[a];
+        int w = 0;
+        for (int q = 0; q < d; q++) {
+            int b = nb[q];
+            if (eliminated[b]) {
+                continue;
+            }
+            int at = position[b];
+            if (at >= 0) {
+                cond[at] += cond[q];
+            } else {
+                position[b] = w;
+                nb[w] = b;
+                cond[w] = cond[q];
+                w++;
+            }
+        }
+        degree[a] = w;
+    }
+
+    private void unscatter(int a) {
+        int[] nb = adjNode[a];
+        for (int q = 0; q < degree[a]; q++) {
+            position[nb[q]] = -1;
+        }
+    }
+
+    private int heapSize;
+
+    private void push(long key) {
+        if (heapSize == heap.length) {
+            heap = Arrays.copyOf(heap, 2 * heap.length);
+        }
+        int i = heapSize++;
+        while (i > 0) {
+            int up = (i - 1) >>> 1;
+            if (heap[up] <= key) {
+                break;
+            }
+            heap[i] = heap[up];
+            i = up;
+        }
+        heap[i] = key;
+    }
+
+    private long pop() {
+        long top = heap[0];
+        long last = heap[--heapSize];
+        int i = 0;
+        while (true) {
+            int c = 2 * i + 1;
+            if (c >= heapSize) {
+                break;
+            }
+            if (c + 1 < heapSize && heap[c + 1] < heap[c]) {
+                c++;
+            }
+            if (heap[c] >= last) {
+                break;
+            }
+            heap[i] = heap[c];
+            i = c;
+        }
+        if (heapSize > 0) {
+            heap[i] = last;
+        }
+        return top;
+    }
+
+    /**
+     * The sparse form of {@link #eliminate}: nodes 0..m−2 are eliminated in minimum-degree order
+     * (ties by index; a lazy heap of (degree, node) keys), each by the star–mesh transform on its
+     * list: pivot D_k = ground_k + Σ c_kj, ground_i += c_ki·ground_k/D_k, and c_ij += c_ki·c_kj/D_k
+     * for every pair of its neighbours (the product taken in the same order for (i, j) and (j, i),
+     * so the lists stay symmetric bit for bit). Only non-negative numbers are added, as in the dense
+     * form. A node's list is frozen when it is eliminated: it is its row for
+     * {@link #backSubstitute}. O(Σ_k deg_k²) time, O(m + links + fill) memory.
+     */
+    private double eliminateSparse(int m) {
+        int source = m - 1;
+        heapSize = 0;
+        for (int i = 0; i < source; i++) {
+            push(((long) degree[i] << 32) | i);
+        }
+        int count = 0;
+        while (heapSize > 0) {
+            long key = pop();
+            int k = (int) key;
+            if (eliminated[k] || (int) (key >>> 32) != degree[k]) {
+                continue; // a stale entry
+            }
+            scatter(k);
+            unscatter(k);
+            eliminated[k] = true;
+            order[count++] = k;
+            int[] nk = adjNode[k];
+            double[] ck = adjConductance[k];
+            int dk = degree[k];
+            double d = ground[k];
+            for (int q = 0; q < dk; q++) {
+                d += ck[q];
+            }
+            pivot[k] = d;
+            if (d == 0) {
+                continue;
+            }
+            double inv = 1.0 / d;
+            double gk = ground[k];
+            for (int q = 0; q < dk; q++) {
+                int i = nk[q];
+                double cik = ck[q];
+                ground[i] += cik * inv * gk;
+                scatter(i);
+                for (int r = 0; r < dk; r++) {
+                    int j = nk[r];
+                    if (j == i) {
+                        continue;
+                    }
+                    // c_ki·c_kj/D_k with the smaller node's conductance first, as the dense form does
+                    double add = i < j ? cik * inv * ck[r] : ck[r] * inv * cik;
+                    int at = position[j];
+                    if (at >= 0) {
+                        adjConductance[i][at] += add;
+                    } else {
+                        append(i, j, add);
+                        position[j] = degree[i] - 1;
+                    }
+                }
+                unscatter(i);
+                if (i != source) {
+                    push(((long) degree[i] << 32) | i);
+                }
+            }
+        }
+        pivot[source] = ground[source];
+        return ground[source];
+    }
+
     /**
      * After {@link #eliminate}: node potentials for a unit current into the source (node m−1),
      * ground at 0: φ_{m−1} = 1/g, then φ_k = Σ_{j&gt;k} c_kj φ_j / D_k. Positive sums only.
@@ -353,6 +574,22 @@ public final class ElectricalNetwork {
     private double[] backSubstitute(int m) {
         double[] phi = new double[m];
         phi[m - 1] = 1.0 / pivot[m - 1];
+        if (sparse) {
+            for (int r = m - 2; r >= 0; r--) {
+                int k = order[r];
+                if (pivot[k] == 0) {
+                    continue;
+                }
+                int[] nb = adjNode[k];
+                double[] cond = adjConductance[k];
+                double sum = 0;
+                for (int q = 0; q < degree[k]; q++) {
+                    sum += cond[q] * phi[nb[q]];
+                }
+                phi[k] = sum / pivot[k];
+            }
+            return phi;
+        }
         for (int k = m - 2; k >= 0; k--) {
             if (pivot[k] == 0) {
                 continue;
@@ -373,7 +610,8 @@ public final class ElectricalNetwork {
      * present edge (oriented u→v), its energy w_e·i_e² (summing to R), and vertex potentials with
      * φ(t) = 0 and φ(s) = R (vertices outside s's component have NaN potential); for a negative input the optimal potential with
      * p = 1 on s's side and 0 on t's side, constant on components of G(x), and the energy
-     * (p_u − p_v)²/w_e on every absent edge. Allocates the returned record; O(|V|³).
+     * (p_u − p_v)²/w_e on every absent edge. Allocates the returned record: O(|V| + |E|) plus the
+     * elimination's cost (see the class javadoc).
      */
     public Witness witness(boolean[] present) {
         int m = build(present);
