@@ -19,7 +19,7 @@ import spanwright.model.Scenario;
 /**
  * The one JSON-level entry to the engine. The command-line tool and the page's TeaVM exports both
  * call these methods, so they can never disagree. Every method takes JSON text and returns JSON
- * text; it never throws for bad input. Errors come back as
+ * text; it never throws (bad input, a bug, a StackOverflowError or OutOfMemoryError alike). Errors come back as
  * {@code {"ok": false, "error": {"code", "message", "path"}}}.
  *
  * <p>Contract (stable; web code relies on it):
@@ -67,10 +67,25 @@ public final class JsonFacade {
         return Json.write(m);
     }
 
-    private static String fail(RuntimeException e) {
+    /**
+     * The envelope for anything a façade call threw: a {@link ScenarioException} keeps its code,
+     * path and message; any other Throwable (a bug, {@link StackOverflowError},
+     * {@link OutOfMemoryError}, …) becomes code {@code internal} with a message, so no exception
+     * ever escapes to the page or the command line.
+     */
+    static String fail(Throwable e) {
         if (e instanceof ScenarioException) {
             ScenarioException se = (ScenarioException) e;
             return error(se.code(), se.path(), se.getMessage());
+        }
+        if (e instanceof OutOfMemoryError) {
+            return error("internal", "$", "internal error: out of memory (" + e.getMessage() + "); the scenario is"
+                    + " too large for this engine: see the limits in docs/scenario-format.md, or use the"
+                    + " command-line tool with more memory (java -Xmx…)");
+        }
+        if (e instanceof StackOverflowError) {
+            return error("internal", "$", "internal error: stack overflow (nesting too deep for this engine);"
+                    + " please report the scenario");
         }
         return error("internal", "$", "internal error: " + e);
     }
@@ -94,7 +109,7 @@ public final class JsonFacade {
             m.put("variables", new ArrayList<Object>(sc.variables()));
             m.put("domainSize", d.size());
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -107,7 +122,7 @@ public final class JsonFacade {
                 return ok("result", StructureJson.analysis(StructuralAnalysis.run(sc), choice));
             }
             return ok("result", ResultJson.analysis(Analysis.run(sc), withInputs));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -127,7 +142,7 @@ public final class JsonFacade {
             m.put("job", id);
             m.put("domainSize", run.total());
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -145,7 +160,7 @@ public final class JsonFacade {
             m.put("processed", run.processed());
             m.put("total", run.total());
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             JOBS.remove(job);
             return fail(e);
         }
@@ -160,7 +175,7 @@ public final class JsonFacade {
             run.step(Long.MAX_VALUE);
             JOBS.remove(job);
             return ok("result", ResultJson.analysis(run.result(), withInputs));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             JOBS.remove(job);
             return fail(e);
         }
@@ -181,7 +196,7 @@ public final class JsonFacade {
             // an input outside the promise can still be inspected, but say so
             m.put("inDomain", sc.promise().allows(mask));
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -273,7 +288,7 @@ public final class JsonFacade {
             m.put("scenario", ScenarioWriter.toJson(b.scenario()));
             m.put("stats", b.stats());
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -296,7 +311,7 @@ public final class JsonFacade {
             m.put("result", ResultJson.optimization(r));
             m.put("scenario", ResultJson.withWeights(scenarioJson, r.scenario));
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -330,7 +345,7 @@ public final class JsonFacade {
             m.put("initialComplexity", ResultJson.num(run.initialComplexity()));
             m.put("method", run.method());
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -363,7 +378,7 @@ public final class JsonFacade {
             }
             m.put("trace", trace);
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             OPT_JOBS.remove(job);
             return fail(e);
         }
@@ -402,7 +417,7 @@ public final class JsonFacade {
             m.put("result", ResultJson.optimization(r));
             m.put("scenario", ResultJson.withWeights((String) j[1], r.scenario));
             return Json.write(m);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -504,7 +519,7 @@ public final class JsonFacade {
             String text = Json.writePretty(doc);
             ScenarioReader.read(text);
             return ok("scenario", text);
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -525,7 +540,7 @@ public final class JsonFacade {
             Scenario sc = ScenarioReader.read(scenarioJson);
             spanwright.quantum.SimulationOptions opt = SimulationJson.options(optionsJson, sc);
             return ok("result", SimulationJson.result(spanwright.quantum.Simulation.run(sc, opt)));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -545,7 +560,7 @@ public final class JsonFacade {
             return ok("result", BoundsJson.report(r));
         } catch (spanwright.bounds.Bounds.BoundViolation e) {
             return error("bound-violated", "$", e.getMessage());
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -557,7 +572,7 @@ public final class JsonFacade {
             return ok("fragment", ShareCodec.encode(scenarioJson));
         } catch (IllegalArgumentException e) { // too large for a link, or a lone surrogate
             return error("share-link", "$", e.getMessage() + " Save the scenario as a file instead.");
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -569,7 +584,7 @@ public final class JsonFacade {
             return ok("scenario", text);
         } catch (IllegalArgumentException e) {
             return error("share-link", "$", "the link is damaged or not a Spanwright link: " + e.getMessage());
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -607,7 +622,7 @@ public final class JsonFacade {
     public static String sweepFamilies() {
         try {
             return okAll(SweepFacade.families());
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -616,7 +631,7 @@ public final class JsonFacade {
     public static String sweepStart(String requestJson) {
         try {
             return okAll(SweepFacade.start(requestJson));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -625,7 +640,7 @@ public final class JsonFacade {
     public static String sweepStep(int job, int maxInputs) {
         try {
             return okAll(SweepFacade.step(job, maxInputs));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -634,7 +649,7 @@ public final class JsonFacade {
     public static String sweepFinish(int job) {
         try {
             return okAll(SweepFacade.finish(job));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -649,7 +664,7 @@ public final class JsonFacade {
     public static String sweepReport(String requestJson) {
         try {
             return okAll(SweepFacade.report(requestJson));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }
@@ -658,7 +673,7 @@ public final class JsonFacade {
     public static String sweep(String requestJson) {
         try {
             return okAll(SweepFacade.sweep(requestJson));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) {
             return fail(e);
         }
     }

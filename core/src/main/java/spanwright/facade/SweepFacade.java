@@ -144,7 +144,7 @@ final class SweepFacade {
         Job j = job(id);
         try {
             advance(j, Math.max(0, maxUnits));
-        } catch (RuntimeException e) {
+        } catch (Throwable e) { // an Error too: a failed job must not stay in the table
             JOBS.remove(id);
             throw e;
         }

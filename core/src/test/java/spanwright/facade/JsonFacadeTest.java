@@ -369,4 +369,45 @@ class JsonFacadeTest {
         error(JsonFacade.encodeShare("{"), "json-syntax", "$");
         error(JsonFacade.decodeShare(ShareCodec.encode(BAD_WEIGHT)), "weight", "$.graph.edges[1].weight");
     }
+
+    @Test
+    void anErrorInsideACallIsAnInternalEnvelopeNotAnException() throws InterruptedException {
+        // A thread with a very small stack overflows inside the façade (the reader, the expression
+        // parser and the evaluator all take some stack per level of a 190-deep function): the call
+        // must answer with the error envelope, never let the StackOverflowError escape.
+        StringBuilder f = new StringBuilder();
+        for (int i = 0; i < 190; i++) {
+            f.append("(a & ");
+        }
+        f.append("b");
+        for (int i = 0; i < 190; i++) {
+            f.append(')');
+        }
+        String deep = PARALLEL.replace("\"a | b\"", "\"" + f + "\"");
+        ok(JsonFacade.validate(deep)); // fine on an ordinary stack
+        String[] reply = new String[1];
+        Throwable[] escaped = new Throwable[1];
+        int overflowed = 0;
+        for (int kib = 16; kib <= 256 && overflowed == 0; kib *= 2) {
+            Thread th = new Thread(null, () -> {
+                try {
+                    reply[0] = JsonFacade.analyze(deep, true);
+                } catch (Throwable e) {
+                    escaped[0] = e;
+                }
+            }, "small-stack", kib * 1024L);
+            th.start();
+            th.join();
+            assertEquals(null, escaped[0], "escaped from the façade with a " + kib + " KiB stack");
+            if (!Boolean.TRUE.equals(parse(reply[0]).get("ok"))) {
+                Map<String, Object> e = error(reply[0], "internal", "$");
+                assertTrue(((String) e.get("message")).contains("stack overflow"), reply[0]);
+                overflowed++;
+            }
+        }
+        assertEquals(1, overflowed, "some small stack overflowed inside the call");
+        // the same helper turns any other Error into a plain message
+        Map<String, Object> oom = error(JsonFacade.fail(new OutOfMemoryError("Java heap space")), "internal", "$");
+        assertTrue(((String) oom.get("message")).contains("out of memory"), oom.toString());
+    }
 }
