@@ -180,15 +180,26 @@ public final class Json {
         }
     }
 
+    /**
+     * A string value. A lone surrogate (half of a UTF-16 character pair, raw or written
+     * {@code \\ud800}) is refused with its position: UTF-8 cannot hold it, so a file, a link or
+     * a result written from it would otherwise change it silently (RFC 8259 §8.2 leaves such
+     * strings' behaviour unpredictable; we refuse them).
+     */
     private String string() {
         pos++;
         StringBuilder sb = new StringBuilder();
+        int highAt = -1; // source position of a high surrogate waiting for its low half
         while (true) {
             if (pos >= text.length()) {
                 throw error("unterminated string");
             }
+            int at = pos;
             char c = text.charAt(pos++);
             if (c == '"') {
+                if (highAt >= 0) {
+                    throw loneSurrogate(highAt);
+                }
                 return sb.toString();
             }
             if (c == '\\') {
@@ -217,6 +228,7 @@ public final class Json {
                             }
                             code = code * 16 + d;
                         }
+                        highAt = surrogateCheck(highAt, (char) code, at);
                         sb.append((char) code);
                         break;
                     default:
@@ -227,9 +239,37 @@ public final class Json {
                 pos--;
                 throw error("control character inside a string");
             } else {
+                highAt = surrogateCheck(highAt, c, at);
                 sb.append(c);
             }
+            if (highAt >= 0 && highAt != at) {
+                throw loneSurrogate(highAt); // an escape such as \\n followed the high half
+            }
         }
+    }
+
+    /**
+     * Checks the pairing of the character {@code c} read at {@code at}, given the position of a
+     * pending high surrogate (−1: none); returns the new pending position.
+     */
+    private int surrogateCheck(int highAt, char c, int at) {
+        if (highAt >= 0) {
+            if (!Character.isLowSurrogate(c)) {
+                throw loneSurrogate(highAt);
+            }
+            return -1;
+        }
+        if (Character.isLowSurrogate(c)) {
+            throw loneSurrogate(at);
+        }
+        return Character.isHighSurrogate(c) ? at : -1;
+    }
+
+    private ScenarioException loneSurrogate(int at) {
+        pos = at;
+        return error("lone surrogate (half of a UTF-16 character pair, e.g. \"\\ud800\" without a following"
+                + " \"\\udc00\" … \"\\udfff\") inside a string; UTF-8 cannot hold it: remove it or write the whole"
+                + " character");
     }
 
     /**
@@ -438,11 +478,24 @@ public final class Json {
         }
     }
 
-    /** Appends {@code s} as a JSON string literal. */
+    /**
+     * Appends {@code s} as a JSON string literal. A lone surrogate (which the reader refuses and
+     * UTF-8 cannot hold) is written as U+FFFD, the replacement character, so every text this
+     * writer produces can be read back; it can only reach the writer from text built in code or
+     * quoted in an error message (e.g. a variable name a rename refused).
+     */
     public static void quote(StringBuilder sb, String s) {
         sb.append('"');
         for (int i = 0; i < s.length(); i++) {
             char c = s.charAt(i);
+            if (Character.isSurrogate(c)) {
+                if (Character.isHighSurrogate(c) && i + 1 < s.length() && Character.isLowSurrogate(s.charAt(i + 1))) {
+                    sb.append(c).append(s.charAt(++i));
+                } else {
+                    sb.append('\ufffd');
+                }
+                continue;
+            }
             switch (c) {
                 case '"': sb.append("\\\""); break;
                 case '\\': sb.append("\\\\"); break;

@@ -89,6 +89,31 @@ class JsonTest {
         assertEquals(map("ключ", "значение"), Json.parse("{\"ключ\": \"значение\"}"));
     }
 
+    @Test
+    void refusesLoneSurrogatesWithTheirPosition() {
+        // Source: Unicode §3.9 / RFC 3629 — UTF-8 encodes scalar values only, so half of a
+        // surrogate pair cannot be written to a file or a link; the reader refuses it (code
+        // json-syntax) at the column of the lone half, raw or escaped, high or low.
+        String[][] cases = {
+            {"\"ab\\ud800\"", "column 4"},          // high half at the end of the string
+            {"\"ab\\ud800x\"", "column 4"},         // high half followed by an ordinary character
+            {"\"ab\\ud800\\n\"", "column 4"},      // … by another escape
+            {"\"ab\\udc00\"", "column 4"},          // low half alone
+            {"\"ab\uD800cd\"", "column 4"},          // raw high half (a Java string can hold one)
+            {"{\n \"k\": \"\uDFFF\"}", "line 2, column 8"}, // raw low half on line 2
+            {"\"\\ud83d\\ud83d\\ude00\"", "column 2"}, // two high halves: the first is alone
+        };
+        for (String[] c : cases) {
+            ScenarioException e = assertThrows(ScenarioException.class, () -> Json.parse(c[0]), c[0]);
+            assertEquals("json-syntax", e.code());
+            assertTrue(e.getMessage().contains("lone surrogate") && e.getMessage().contains(c[1]), c[0] + ": " + e.getMessage());
+        }
+        // the writer never produces one: a lone half is written as U+FFFD, a pair as it is
+        assertEquals("\"a\ufffdb\ufffd\ud83d\ude00\"", Json.write("a\ud800b\udc00\ud83d\ude00"));
+        // pairs, raw or escaped, are fine (see readsUnicode)
+        assertEquals("\ud83d\ude00\ud83d\ude00", Json.parse("\"\\ud83d\\ude00\ud83d\ude00\""));
+    }
+
     // ------------------------------------------------------------------ writing
 
     @Test
