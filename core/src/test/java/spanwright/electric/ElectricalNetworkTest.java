@@ -554,9 +554,9 @@ class ElectricalNetworkTest {
             w[i] = Math.pow(10, -3 + 6 * rnd.nextDouble());
         }
         ElectricalNetwork dense = Nets.always(k * k, 0, k * k - 1, e, w);
-        dense.denseLimit(Integer.MAX_VALUE);
+        dense.forceForm(-1);
         ElectricalNetwork sparse = Nets.always(k * k, 0, k * k - 1, e, w);
-        sparse.denseLimit(0);
+        sparse.forceForm(1);
         for (int rep = 0; rep < 50; rep++) {
             boolean[] present = new boolean[e.length];
             for (int i = 0; i < present.length; i++) {
