@@ -78,6 +78,12 @@ public final class OptimizerOptions {
         return new OptimizerOptions(starts, seed, Math.max(1, it), maxMillis, tolerance, tie, mode);
     }
 
+    /**
+     * Time budget of the whole call, the final analysis included: the search keeps time for it
+     * (estimated from the first evaluation) and checks the clock in the outer step, the line search
+     * and the surrogate's Newton loop, so it overruns by at most one evaluation of the candidate
+     * inputs or one Newton iteration.
+     */
     public OptimizerOptions withMaxMillis(long ms) {
         return new OptimizerOptions(starts, seed, maxIterations, Math.max(1, ms), tolerance, tie, mode);
     }

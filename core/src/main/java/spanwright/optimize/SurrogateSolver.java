@@ -163,8 +163,13 @@ final class SurrogateSolver {
         return value;
     }
 
-    /** Minimiser of the surrogate, starting from {@code u0} (fixed groups keep their values). */
-    double[] minimise(double[][] a, double[][] b, double[] u0) {
+    /**
+     * Minimiser of the surrogate, starting from {@code u0} (fixed groups keep their values). When
+     * {@code deadline} (may be null) has passed, returns the current iterate at the next Newton
+     * iteration: its surrogate value is no higher than at {@code u0}, and the caller's line
+     * search checks the true objective anyway.
+     */
+    double[] minimise(double[][] a, double[][] b, double[] u0, Deadline deadline) {
         int g = groups;
         double[] u = u0.clone();
         for (int k = 0; k < g; k++) {
@@ -190,6 +195,9 @@ final class SurrogateSolver {
         double[][] hess = new double[g][g];
         for (double tau = 5e-2; tau >= 1e-10; tau *= 0.1) {
             for (int it = 0; it < 40; it++) {
+                if (deadline != null && deadline.passed()) {
+                    return clamp(u); // at most one Newton iteration past the budget
+                }
                 java.util.Arrays.fill(grad, 0);
                 for (double[] row : hess) {
                     java.util.Arrays.fill(row, 0);

@@ -119,7 +119,7 @@ public final class WeightOptimizer {
     public static final class Run {
         private final Scenario scenario;
         private final OptimizerOptions options;
-        private final long deadline;
+        private final Deadline deadline;
         private final WorstCaseEvaluator ev;
         private final int[] group;
         private final int g;
@@ -156,7 +156,7 @@ public final class WeightOptimizer {
             this.ws = ws;
             this.scenario = null;
             this.options = null;
-            this.deadline = 0;
+            this.deadline = null;
             this.ev = null;
             this.group = null;
             this.g = 0;
@@ -169,10 +169,15 @@ public final class WeightOptimizer {
         }
 
         Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
+            this(scenario, candidates, options, Deadline.after(options.maxMillis));
+        }
+
+        /** With a caller's deadline (tests inject a clock). */
+        Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options, Deadline deadline) {
             this.ws = null;
             this.scenario = scenario;
             this.options = options;
-            this.deadline = System.currentTimeMillis() + options.maxMillis;
+            this.deadline = deadline;
             this.ev = candidates == null ? new WorstCaseEvaluator(scenario) : new WorstCaseEvaluator(scenario, candidates);
             WeightGroups wg = new WeightGroups(scenario, ev.keptEdge, options.tie);
             group = wg.group;
@@ -181,8 +186,15 @@ public final class WeightOptimizer {
             u0 = wg.u0;
             anyLocked = wg.anyLocked;
             int freeCount = wg.freeCount;
+            long t0 = deadline.now();
             initial = Math.sqrt(ev.evaluate(expand(u0, group)));
+            // keep time for result(): one more evaluation, then the analysis of the domain (or of
+            // the caller's candidates), estimated from this evaluation's time
+            double candidateCount = Math.max(1, ev.positives.length + ev.negatives.length);
+            double domainShare = ev.callerCandidates ? 1 : Math.min(1e6, ev.domainSize / candidateCount);
+            deadline.reserve((long) Math.ceil((deadline.now() - t0) * (1 + domainShare)));
             bestU = u0;
+            bestTrace = List.of(initial);
             solver = new SurrogateSolver(g, free, u0);
             rnd = new SeededRandom(options.seed); // java.util.Random ignores seeds under TeaVM
             if (Double.isNaN(initial) || freeCount == 0 || initial == 0) {
@@ -200,6 +212,11 @@ public final class WeightOptimizer {
         /** Worst inputs in the working set so far (0 for the whole-domain optimiser). */
         public int workingSetSize() {
             return ws == null ? 0 : ws.workingSetSize(true) + ws.workingSetSize(false);
+        }
+
+        /** Solves so far (for tests that measure the budget in evaluations). */
+        long solves() {
+            return ev.solves;
         }
 
         /** √(W₊W₋) with the starting weights. */
@@ -280,6 +297,10 @@ public final class WeightOptimizer {
                 return true;
             }
             if (!inStart) {
+                if (deadline.passed()) {
+                    finishSearch(OptimizationResult.Status.BUDGET_REACHED); // no new start past the budget
+                    return true;
+                }
                 if (start + 1 >= options.starts) {
                     finishSearch(bestStatus);
                     return true;
@@ -287,7 +308,7 @@ public final class WeightOptimizer {
                 beginStart();
                 return false;
             }
-            if (iteration >= options.maxIterations || System.currentTimeMillis() > deadline) {
+            if (iteration >= options.maxIterations || deadline.passed()) {
                 endStart(OptimizationResult.Status.BUDGET_REACHED);
                 return false;
             }
@@ -295,7 +316,11 @@ public final class WeightOptimizer {
             double[] uNew = u;
             // When no descent is found, the active sets may lack some of many tied worst
             // inputs: widen them (4×, 16×, 64× more per side) before calling it converged.
-            for (int attempt = 0; attempt < 4 && !accepted; attempt++) {
+            boolean outOfTime = false;
+            for (int attempt = 0; attempt < 4 && !accepted && !outOfTime; attempt++) {
+                if (attempt > 0 && (outOfTime = deadline.passed())) {
+                    break;
+                }
                 if (attempt > 0) {
                     ev.evaluate(expand(u, group)); // the values at u, not at the last trial
                 }
@@ -308,9 +333,12 @@ public final class WeightOptimizer {
                 }
                 double[][] a = rows(ev, activeP, true, group, g);
                 double[][] b = rows(ev, activeN, false, group, g);
-                double[] target = solver.minimise(a, b, u);
+                double[] target = solver.minimise(a, b, u, deadline);
                 double t = 1.0;
                 for (int ls = 0; ls < 30; ls++) {
+                    if (ls > 0 && (outOfTime = deadline.passed())) {
+                        break; // at most one evaluation past the budget
+                    }
                     double[] trial = new double[g];
                     for (int q = 0; q < g; q++) {
                         trial[q] = u[q] + t * (target[q] - u[q]);
@@ -327,6 +355,10 @@ public final class WeightOptimizer {
             }
             totalIterations++;
             iteration++;
+            if (!accepted && outOfTime) {
+                endStart(OptimizationResult.Status.BUDGET_REACHED); // the next start re-evaluates
+                return false;
+            }
             if (!accepted) {
                 ev.evaluate(expand(u, group)); // restore the evaluator's state at u
                 endStart(OptimizationResult.Status.CONVERGED);

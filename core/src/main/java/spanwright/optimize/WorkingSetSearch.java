@@ -76,7 +76,7 @@ final class WorkingSetSearch {
 
     private final Scenario scenario;
     private final OptimizerOptions options;
-    private final long deadline;
+    private final Deadline deadline;
     private final int[] keptEdge;
     private final int[] eu;
     private final int[] ev;
@@ -113,7 +113,7 @@ final class WorkingSetSearch {
     WorkingSetSearch(Scenario scenario, OptimizerOptions options) {
         this.scenario = scenario;
         this.options = options;
-        this.deadline = System.currentTimeMillis() + options.maxMillis;
+        this.deadline = Deadline.after(options.maxMillis);
         List<Integer> kept = new ArrayList<>();
         for (int i = 0; i < scenario.edges().size(); i++) {
             if (!scenario.edges().get(i).isSelfLoop()) {
@@ -300,7 +300,7 @@ final class WorkingSetSearch {
             beginStart();
             return false;
         }
-        if (round >= options.maxIterations || System.currentTimeMillis() > deadline) {
+        if (round >= options.maxIterations || deadline.passed()) {
             endStart(OptimizationResult.Status.BUDGET_REACHED);
             return false;
         }
@@ -313,7 +313,7 @@ final class WorkingSetSearch {
             if (a.isEmpty() || b.isEmpty()) {
                 break;
             }
-            double[] target = solver.minimise(a.toArray(new double[0][]), b.toArray(new double[0][]), u);
+            double[] target = solver.minimise(a.toArray(new double[0][]), b.toArray(new double[0][]), u, deadline);
             double t = 1.0;
             double[] next = null;
             double fn = f;
