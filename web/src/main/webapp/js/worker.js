@@ -101,7 +101,9 @@
       }
       if (!started.ok) { post({ type: "analysis-error", id: msg.id, text: JSON.stringify(started) }); return; }
       const job = { id: msg.id, job: started.job, cancelled: false, t0: t0, chunk: 1024,
-        withInputs: msg.withInputs !== false, total: started.domainSize, scenario: msg.scenario, stepped: false, retried: false };
+        // rows are listed up to the engine's limit (maxListedInputs, 2^20; docs/scenario-format.md)
+        withInputs: msg.withInputs !== false && !(started.maxListedInputs >= 0 && started.domainSize > started.maxListedInputs),
+        total: started.domainSize, scenario: msg.scenario, stepped: false, retried: false };
       running = job;
       // Small domains are finished in one call; large ones are stepped with progress reports.
       if (job.total <= 4096) { finish(job); return; }

@@ -70,6 +70,47 @@ public final class Analysis {
     /** Largest domain {@link Method#AUTO} enumerates: beyond it, structure is cheaper. */
     public static final int AUTO_ENUMERATION_VARIABLES = 20;
 
+    /**
+     * Most inputs an enumeration keeps per-input values for (one double and one byte each, about
+     * 151 MB at this size): 2^24, the reader's limit for an enumerated promise. The same in the
+     * command-line tool and the page (docs/scenario-format.md, "Limits").
+     */
+    public static final long MAX_ENUMERATED_INPUTS = 1L << 24;
+
+    /**
+     * Most inputs whose rows are listed one by one (analyze --inputs, the page's input table): 2^20.
+     * A list of 2^22 rows is about 300 million characters of JSON, more than a browser can hold in
+     * one string. The same in the command-line tool and the page.
+     */
+    public static final long MAX_LISTED_INPUTS = 1L << 20;
+
+    /**
+     * Refuses, before any allocation, a domain too large to enumerate with per-input values.
+     *
+     * @throws ScenarioException {@code too-many-inputs}, naming the limit and what to use instead
+     */
+    public static void checkEnumerable(long domainSize) {
+        if (domainSize > MAX_ENUMERATED_INPUTS) {
+            throw new ScenarioException("too-many-inputs", "$.promise", "the domain has " + domainSize
+                    + " inputs, more than the 2^24 = " + MAX_ENUMERATED_INPUTS + " an enumeration can keep; without a"
+                    + " promise, scenarios beyond " + AUTO_ENUMERATION_VARIABLES + " variables are analysed by structure"
+                    + " (analyze --method structure), or narrow the promise");
+        }
+    }
+
+    /**
+     * Refuses, before any allocation, a per-input list longer than {@link #MAX_LISTED_INPUTS}.
+     *
+     * @throws ScenarioException {@code too-many-inputs}, naming the limit and what to use instead
+     */
+    public static void checkListable(long domainSize) {
+        if (domainSize > MAX_LISTED_INPUTS) {
+            throw new ScenarioException("too-many-inputs", "$", "listing every input's row is limited to 2^20 = "
+                    + MAX_LISTED_INPUTS + " inputs and this domain has " + domainSize + "; drop the list (analyze"
+                    + " without --inputs) for W+, W- and the worst inputs, or look at single inputs (analyze --input BITS)");
+        }
+    }
+
     /** The method that will run, and why, in one line a researcher understands. */
     public record Choice(Method method, String reason) {}
 

@@ -12,7 +12,8 @@ import spanwright.model.Scenario;
  * <p>For every input it records connectivity, the witness size (R or C) and, when a function is
  * given, f(x); the maxima with their first maximiser in input order and the first
  * {@link #KEPT_COUNTEREXAMPLES} counterexamples come from a {@link Summary.Builder}, the per-input
- * routine every enumeration shares. Memory: one double and one byte per input. Cost: one
+ * routine every enumeration shares. Memory: one double and one byte per input, for at most
+ * {@link Analysis#MAX_ENUMERATED_INPUTS} inputs (refused before allocation beyond). Cost: one
  * {@link spanwright.electric.ElectricalNetwork#evaluate} per input.
  *
  * <p><b>Mutable and single-threaded.</b>
@@ -42,9 +43,7 @@ public final class AnalysisRun {
         this.scenario = scenario;
         this.domain = InputDomain.of(scenario);
         this.summary = new Summary.Builder(scenario, Summary.Coverage.DOMAIN, 0, false);
-        if (domain.size() > Integer.MAX_VALUE - 16) {
-            throw new IllegalStateException("domain too large to store");
-        }
+        Analysis.checkEnumerable(domain.size()); // before the per-input arrays are allocated
         this.values = new double[(int) domain.size()];
         this.flags = new byte[(int) domain.size()];
     }

@@ -231,6 +231,9 @@ public final class Main {
         if (choice.method() == Analysis.Method.STRUCTURE) {
             return AnalyzeMore.structure(sc, choice, json, inputs, seconds, out);
         }
+        if (inputs) {
+            Analysis.checkListable(spanwright.domain.InputDomain.of(sc).size()); // before the work
+        }
         AnalysisResult r = Analysis.run(sc);
         if (json) {
             Map<String, Object> m = ResultJson.analysis(r, inputs);

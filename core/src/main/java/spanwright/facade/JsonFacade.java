@@ -29,7 +29,9 @@ import spanwright.model.Scenario;
  *   <li>{@code analyze(scenario, withInputs)} → {@code {"ok":true,"result":{...}}}, result having
  *       the keys of {@code analyze --json} (title, variables, vertices, edges, domainSize,
  *       reduction, positive, negative, complexity, histogram; and inputs when asked).</li>
- *   <li>{@code startAnalysis(scenario)} → {@code {"ok":true,"job":ID,"domainSize":N}};
+ *   <li>{@code startAnalysis(scenario)} → {@code {"ok":true,"job":ID,"domainSize":N,
+ *       "maxListedInputs":L}} (inputs are listed only when N ≤ L; otherwise withInputs is refused
+ *       with code {@code too-many-inputs});
  *       {@code stepAnalysis(ID, maxInputs)} → {@code {"ok":true,"done":bool,"processed":k,
  *       "total":N}}; {@code finishAnalysis(ID, withInputs)} → like analyze;
  *       {@code cancelAnalysis(ID)}. Single-threaded; for a worker that reports progress.</li>
@@ -121,6 +123,9 @@ public final class JsonFacade {
             if (choice.method() == Analysis.Method.STRUCTURE) {
                 return ok("result", StructureJson.analysis(StructuralAnalysis.run(sc), choice));
             }
+            if (withInputs) {
+                Analysis.checkListable(InputDomain.of(sc).size()); // before the analysis, not after
+            }
             return ok("result", ResultJson.analysis(Analysis.run(sc), withInputs));
         } catch (Throwable e) {
             return fail(e);
@@ -141,6 +146,8 @@ public final class JsonFacade {
             m.put("ok", true);
             m.put("job", id);
             m.put("domainSize", run.total());
+            // finishAnalysis lists rows only up to this many inputs (the page asks for them only then)
+            m.put("maxListedInputs", Analysis.MAX_LISTED_INPUTS);
             return Json.write(m);
         } catch (Throwable e) {
             return fail(e);

@@ -80,6 +80,7 @@ public final class ResultJson {
         m.put("histogram", hist);
 
         if (withInputs) {
+            Analysis.checkListable(r.domainSize());
             List<Object> inputs = new ArrayList<>();
             boolean checked = r.reductionChecked();
             for (int i = 0; i < r.domainSize(); i++) {

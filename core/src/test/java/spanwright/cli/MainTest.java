@@ -151,6 +151,33 @@ class MainTest {
         }
     }
 
+    /** 21 variables under a promise that allows every input: 2^21 inputs, one s–t edge on x1. */
+    static String wideDomain() {
+        StringBuilder vars = new StringBuilder();
+        for (int i = 1; i <= 21; i++) {
+            vars.append(i > 1 ? ", " : "").append("\"x").append(i).append('"');
+        }
+        return "{\"format\": \"spanwright-scenario\", \"version\": 1, \"variables\": [" + vars + "],"
+            + " \"promise\": \"x1 | !x1\", \"graph\": {\"s\": \"s\", \"t\": \"t\","
+            + " \"vertices\": [{\"id\": \"s\"}, {\"id\": \"t\"}], \"edges\": [{\"u\": \"s\", \"v\": \"t\", \"when\": \"x1\"}]}}";
+    }
+
+    @Test
+    void listingMoreThanTwoToTheTwentyInputsIsRefusedBeforeTheWork() throws IOException {
+        // the stated limit (docs/scenario-format.md): rows for at most 2^20 inputs; 2^21 is refused
+        // with exit 2 and what to use instead, text and JSON alike; without --inputs it runs
+        Path p = write("wide.json", wideDomain());
+        for (String[] args : new String[][] {{"analyze", p.toString(), "--inputs"},
+                {"analyze", p.toString(), "--json", "--inputs"}}) {
+            Run r = run(args);
+            assertEquals(2, r.status, r.err);
+            assertTrue(r.err.contains("too-many-inputs") || r.err.contains("2^20"), r.err);
+            assertTrue(r.err.contains("2097152") && r.err.contains("--input BITS"), r.err);
+            assertEquals("", r.out);
+            assertNoStackTrace(r);
+        }
+    }
+
     @Test
     void malformedJsonExitsTwoWithLineAndColumn() throws IOException {
         Path p = write("broken.json", "{\"format\": \"spanwright-scenario\",\n  \"version\": 1\n  \"title\": \"x\"}");

@@ -174,7 +174,7 @@ class JsonFacadeTest {
     void stepwiseAnalysisGivesTheSameResultAsAnalyze() throws IOException {
         String text = defaultScenario();
         Map<String, Object> start = ok(JsonFacade.startAnalysis(text));
-        assertEquals(List.of("ok", "job", "domainSize"), List.copyOf(start.keySet()));
+        assertEquals(List.of("ok", "job", "domainSize", "maxListedInputs"), List.copyOf(start.keySet()));
         int job = ((Double) start.get("job")).intValue();
         int total = ((Double) start.get("domainSize")).intValue();
         assertEquals(64, total); // derived: 6 variables, no promise, 2^6 inputs
@@ -409,5 +409,34 @@ class JsonFacadeTest {
         // the same helper turns any other Error into a plain message
         Map<String, Object> oom = error(JsonFacade.fail(new OutOfMemoryError("Java heap space")), "internal", "$");
         assertTrue(((String) oom.get("message")).contains("out of memory"), oom.toString());
+    }
+
+    @Test
+    void theLimitsOnKeptAndListedInputsAreStatedAndRefusedCleanly() {
+        // docs/scenario-format.md, "Limits": 2^24 inputs kept, 2^20 listed — the same numbers here
+        assertEquals(1L << 24, spanwright.analysis.Analysis.MAX_ENUMERATED_INPUTS);
+        assertEquals(1L << 20, spanwright.analysis.Analysis.MAX_LISTED_INPUTS);
+        spanwright.analysis.Analysis.checkEnumerable(1L << 24);
+        spanwright.model.ScenarioException e = org.junit.jupiter.api.Assertions.assertThrows(
+                spanwright.model.ScenarioException.class,
+                () -> spanwright.analysis.Analysis.checkEnumerable((1L << 24) + 1));
+        assertEquals("too-many-inputs", e.code());
+        assertTrue(e.getMessage().contains("structure"), e.getMessage());
+        // analyze with the list on 2^21 inputs: refused before the analysis (the page's worker asks
+        // for rows only up to maxListedInputs, which startAnalysis reports)
+        // 21 variables, the promise allows every input: 2^21 inputs (one edge s–t on x1)
+        StringBuilder vars = new StringBuilder();
+        for (int i = 1; i <= 21; i++) {
+            vars.append(i > 1 ? ", " : "").append("\"x").append(i).append('"');
+        }
+        String wide = PARALLEL.replace("[\"a\", \"b\"]", "[" + vars + "]").replace("\"a | b\"", "\"x1 | x2\"")
+                .replace("\"when\": \"a\"", "\"when\": \"x1\"").replace("\"when\": \"b\"", "\"when\": \"x2\"")
+                .replace("\"function\"", "\"promise\": \"x1 | !x1\", \"function\"");
+        Map<String, Object> err = error(JsonFacade.analyze(wide, true), "too-many-inputs", "$");
+        assertTrue(((String) err.get("message")).contains("2^20"), err.toString());
+        Map<String, Object> started = ok(JsonFacade.startAnalysis(wide));
+        assertEquals(1048576.0, ((Number) started.get("maxListedInputs")).doubleValue());
+        assertEquals(2097152.0, ((Number) started.get("domainSize")).doubleValue());
+        JsonFacade.cancelAnalysis(((Number) started.get("job")).intValue());
     }
 }
