@@ -76,14 +76,15 @@ public final class ElectricalNetwork {
     private long[] heap = new long[16];
 
     /**
-     * Local networks of at most this many nodes are eliminated as a dense m × m matrix (fastest for
-     * the small networks of enumeration); larger ones in sparse form with a minimum-degree order, so
+     * Local networks of at most this many nodes are eliminated as a dense m × m matrix (at most
+     * 512 KiB; fastest for the small networks of enumeration, and as fast as the sparse form up to
+     * here on random graphs of average degree 3, measured with bench); larger ones in sparse form with a minimum-degree order, so
      * memory is O(nodes + links + fill) instead of O(m²) and no index can overflow — unless they
      * have at least {@link #DENSE_DEGREE}·m links and at most {@link #DENSE_MAX} nodes: such
      * networks (random graphs of average degree ≥ 6, say) fill in almost completely, and the dense
      * loop is then several times faster for the same m²/2 numbers.
      */
-    static final int DENSE_LIMIT = 64;
+    static final int DENSE_LIMIT = 256;
     /** See {@link #DENSE_LIMIT}: links per node from which a network is taken as dense. */
     static final int DENSE_DEGREE = 3;
     /** See {@link #DENSE_LIMIT}: most nodes of a dense matrix (2048² doubles = 32 MiB). */
