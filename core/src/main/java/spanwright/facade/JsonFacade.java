@@ -19,8 +19,8 @@ import spanwright.model.Scenario;
 /**
  * The one JSON-level entry to the engine. The command-line tool and the page's TeaVM exports both
  * call these methods, so they can never disagree. Every method takes JSON text and returns JSON
- * text; it never throws (bad input, a bug, a StackOverflowError or OutOfMemoryError alike). Errors come back as
- * {@code {"ok": false, "error": {"code", "message", "path"}}}.
+ * text; it never throws (bad input, a bug, a StackOverflowError or OutOfMemoryError alike).
+ * Errors come back as {@code {"ok": false, "error": {"code", "message", "path"}}}.
  *
  * <p>Contract (stable; web code relies on it):
  * <ul>
