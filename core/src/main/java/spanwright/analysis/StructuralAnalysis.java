@@ -251,13 +251,7 @@ public final class StructuralAnalysis {
             return new Side(Double.NaN, Double.NaN, true, null, BigInteger.ZERO, "heaviest simple s-t path: "
                     + path.method() + "; s and t are never connected");
         }
-        boolean[] x = new boolean[sc.variableCount()];
-        for (int k = 0; k < path.edges().length; k++) {
-            if (path.edges()[k]) {
-                x[sc.edges().get(index.get(k)).when().variable()] = true;
-            }
-        }
-        InputDetail worst = detail(sc, x);
+        InputDetail worst = detail(sc, assignment(sc, path.edges(), index, true));
         return new Side(worst.witness.value, worst.witness.value, true, worst, path.count(),
                 "heaviest simple s-t path (" + path.method() + ")");
     }
@@ -305,16 +299,25 @@ public final class StructuralAnalysis {
             return capped(branchAndBound(sc, false, maxNodes, seconds, e.getMessage() + "; fell back to "), cap,
                     "the sum of 1/w over all switchable edges");
         }
-        boolean[] x = new boolean[sc.variableCount()];
-        java.util.Arrays.fill(x, true);
-        for (int k = 0; k < bond.edges().length; k++) {
-            if (bond.edges()[k]) {
-                x[sc.edges().get(index.get(k)).when().variable()] = false;
-            }
-        }
-        InputDetail worst = detail(sc, x);
+        InputDetail worst = detail(sc, assignment(sc, bond.edges(), index, false));
         return new Side(worst.witness.value, worst.witness.value, true, worst, bond.count(),
                 "heaviest s-t bond (" + bond.method() + ")");
+    }
+
+    /**
+     * The input whose variables of the maximiser's edges ({@code chosen}, indices into the host
+     * graph, mapped back by {@code index}) are {@code value} and all others {@code !value}: the
+     * path's edges present (value true) or the bond's edges absent (value false).
+     */
+    private static boolean[] assignment(Scenario sc, boolean[] chosen, List<Integer> index, boolean value) {
+        boolean[] x = new boolean[sc.variableCount()];
+        java.util.Arrays.fill(x, !value);
+        for (int k = 0; k < chosen.length; k++) {
+            if (chosen[k]) {
+                x[sc.edges().get(index.get(k)).when().variable()] = value;
+            }
+        }
+        return x;
     }
 
     /** The side with its upper end lowered to {@code cap}, a bound valid for every input (derived in the caller). */
