@@ -235,6 +235,7 @@ public final class SweepTables {
                                 : " (two points: no error estimate)")
                         .append("  over ").append(name).append(" = ").append(full(f.get("fromSize"))).append(" … ")
                         .append(full(f.get("toSize"))).append('\n');
+                growth(sb, (Map<String, Object>) f.get("growth"));
             }
         }
         sb.append("caution: ").append(result.get("caution")).append(".\n");

@@ -104,4 +104,32 @@ class StructureSweepTest {
                 .get("exponent")).doubleValue();
         assertTrue(e > 1.3 && e < 1.8, "exponent in n: " + e);
     }
+
+    @Test
+    void theParameterFitNamesItsModelAndTheOffsetModelReadsThreeHalves() {
+        // Derived: unit-weight K_n has sqrt((n − 1)·⌊n²/4⌋) = n^{3/2}/2 · (1 + O(1/n)); Dürr, Heiligman,
+        // Høyer & Mhalla (ICALP 2004 / SIAM J. Comput. 35, 2006) prove Θ(n^{3/2}) queries. Over
+        // n = 4 … 16 the pure power law reads about 1.58 (lower-order terms); the offset model a n^b + c
+        // must land within 0.1 of 3/2, as the target asks of the sweep.
+        List<Double> ns = new java.util.ArrayList<>();
+        List<Double> ys = new java.util.ArrayList<>();
+        for (int n = 4; n <= 16; n++) {
+            ns.add((double) n);
+            ys.add(Math.sqrt((n - 1) * Math.floor(n * n / 4.0)));
+        }
+        GrowthModels.Result g = GrowthModels.fit(ns, ys);
+        GrowthModels.Model offset = g.models().stream().filter(m -> m.formula().equals("a n^b + c")).findFirst()
+                .orElseThrow();
+        assertEquals(1.5, offset.b(), 0.1, "a n^b + c over n = 4 … 16");
+        // and the text table prints the competing models under the parameter line, not a bare exponent
+        SweepOptions o = SweepOptions.defaults().withBounds(false, 0).withOptimizeIterations(0);
+        Family complete = SweepFamiliesTest.family("complete");
+        List<Map<String, Object>> rows = SweepFamiliesTest.sweep(complete, "7..10", o);
+        Map<String, Object> doc = SweepDocument.result(complete, SizeList.parse("7..10", "sizes"), o, rows, 0, 0, null);
+        String text = SweepTables.text(doc);
+        int at = text.indexOf("in the parameter n");
+        assertTrue(at >= 0, text);
+        assertTrue(text.indexOf("a n^b + c", at) > at, text);
+        assertTrue(text.indexOf("local exponents", at) > at, text);
+    }
 }
