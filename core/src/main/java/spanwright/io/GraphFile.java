@@ -14,9 +14,12 @@ import java.util.Map;
  * Immutable; made by {@link GraphFormats#read} (or by hand in tests).
  */
 public final class GraphFile {
+    /** The vertex attribute that marks s and t (values {@code s}, {@code t}). */
+    public static final String ROLE = "role";
+
     /** The formats {@link GraphFormats} reads. */
     public enum Format {
-        GRAPHML("GraphML", ".graphml"),
+        GRAPHML("GraphML", ".graphml", ".xml"),
         DOT("DOT (Graphviz)", ".dot", ".gv"),
         GML("GML", ".gml"),
         CSV("CSV edge list", ".csv");
@@ -159,6 +162,41 @@ public final class GraphFile {
     /** The graph's own attributes (GraphML's graph-level data is not read by JGraphT's importer). */
     public Map<String, String> graphAttributes() {
         return graphAttributes;
+    }
+
+    /** The finite number in {@code text} (surrounding spaces allowed), or NaN. */
+    public static double number(String text) {
+        if (text == null) {
+            return Double.NaN;
+        }
+        try {
+            double v = Double.parseDouble(text.trim());
+            return Double.isInfinite(v) ? Double.NaN : v;
+        } catch (NumberFormatException e) {
+            return Double.NaN;
+        }
+    }
+
+    /**
+     * Graphviz's {@code pos} of a node, {@code "x,y"} or {@code "x,y!"} (points, y upwards), as
+     * the scenario's x and y (y grows downwards, so it is negated); null when absent or not two
+     * numbers.
+     */
+    public static double[] dotPosition(String pos) {
+        if (pos == null) {
+            return null;
+        }
+        String p = pos.trim();
+        if (p.endsWith("!")) {
+            p = p.substring(0, p.length() - 1);
+        }
+        int comma = p.indexOf(',');
+        if (comma < 0 || p.indexOf(',', comma + 1) >= 0) {
+            return null;
+        }
+        double x = number(p.substring(0, comma));
+        double y = number(p.substring(comma + 1));
+        return Double.isNaN(x) || Double.isNaN(y) ? null : new double[] {x, y == 0 ? 0 : -y};
     }
 
     /**

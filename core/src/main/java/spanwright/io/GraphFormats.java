@@ -53,7 +53,7 @@ public final class GraphFormats {
     /** @see #LITERAL */
     public static final String WEIGHT = "weight";
     /** The vertex attribute that marks s and t (values {@code s}, {@code t}). */
-    public static final String ROLE = "role";
+    public static final String ROLE = GraphFile.ROLE;
 
     private GraphFormats() {}
 
@@ -137,10 +137,10 @@ public final class GraphFormats {
             x[i] = Double.NaN;
             y[i] = Double.NaN;
             if (format == GraphFile.Format.DOT) {
-                double[] pos = dotPosition(a.get("pos"));
+                double[] pos = GraphFile.dotPosition(a.get("pos"));
                 if (pos != null) {
                     x[i] = pos[0];
-                    y[i] = pos[1] == 0 ? 0 : -pos[1];
+                    y[i] = pos[1];
                 }
             } else if (format != GraphFile.Format.CSV) {
                 x[i] = number(a.get("x"));
@@ -240,35 +240,9 @@ public final class GraphFormats {
         return new String[] {body.toString(), weightName, single ? "copied" : null};
     }
 
-    /** Graphviz's {@code pos} of a node, {@code "x,y"} or {@code "x,y!"}; null when absent or not two numbers. */
-    private static double[] dotPosition(String pos) {
-        if (pos == null) {
-            return null;
-        }
-        String p = pos.trim();
-        if (p.endsWith("!")) {
-            p = p.substring(0, p.length() - 1);
-        }
-        String[] xy = p.split(",");
-        if (xy.length != 2) {
-            return null;
-        }
-        double x = number(xy[0]);
-        double y = number(xy[1]);
-        return Double.isNaN(x) || Double.isNaN(y) ? null : new double[] {x, y};
-    }
-
-    /** The finite number in {@code text}, or NaN. */
+    /** The finite number in {@code text}, or NaN (see {@link GraphFile#number}). */
     public static double number(String text) {
-        if (text == null) {
-            return Double.NaN;
-        }
-        try {
-            double v = Double.parseDouble(text.trim());
-            return Double.isInfinite(v) ? Double.NaN : v;
-        } catch (NumberFormatException e) {
-            return Double.NaN;
-        }
+        return GraphFile.number(text);
     }
 
     /**

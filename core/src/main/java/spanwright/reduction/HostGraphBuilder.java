@@ -126,7 +126,8 @@ public final class HostGraphBuilder {
     }
 
     /**
-     * A host read from a graph file ({@code spanwright.io.GraphFormats}): its vertices (positions
+     * A host read from a graph file ({@code spanwright.io.GraphFormats} for the command line,
+     * {@code spanwright.io.GraphTextReader} for the page): its vertices (positions
      * kept when every vertex has one, otherwise all on a circle), its edges (the file's edge ids
      * when given) with self-loops dropped. By default one fresh variable per edge, as
      * {@link #given}; with {@code literalKey}, each edge's condition is the text of that edge
@@ -170,7 +171,7 @@ public final class HostGraphBuilder {
             double w = 1;
             String wt = l.attributes().get(weightKey);
             if (wt != null) {
-                w = spanwright.io.GraphFormats.number(wt);
+                w = spanwright.io.GraphFile.number(wt);
                 if (!(w > 0)) {
                     throw new ScenarioException("weight", where, name + " has " + weightKey + " = \"" + wt
                             + "\"; a weight is a resistance, a finite number > 0");
@@ -188,8 +189,8 @@ public final class HostGraphBuilder {
             h.edgeIds.add(l.id());
             h.weights.add(w);
         }
-        h.s = file.vertexWith(spanwright.io.GraphFormats.ROLE, "s");
-        h.t = file.vertexWith(spanwright.io.GraphFormats.ROLE, "t");
+        h.s = file.vertexWith(spanwright.io.GraphFile.ROLE, "s");
+        h.t = file.vertexWith(spanwright.io.GraphFile.ROLE, "t");
         for (String[] end : new String[][] {{"s", s, h.s}, {"t", t, h.t}}) {
             if (end[1] == null && end[2] != null && end[2].startsWith("?")) {
                 throw new ScenarioException("ambiguous", "$." + end[0], "vertices " + end[2].substring(1) + " are both"
