@@ -40,6 +40,8 @@ import spanwright.model.Scenario;
  *   <li>{@code build(request)} → {@code {"ok":true,"scenario":{...},"stats":{...}}}: a scenario
  *       built from a formula, a function, a host graph or a composition (request format on
  *       {@link #build}).</li>
+ *   <li>{@code importGraph(text, options)} → {@code {"ok":true,"vertices":[…],"s","t",
+ *       "scenario":{...},…}}: a GraphML or DOT file opened as a host graph (on {@link #importGraph}).</li>
  *   <li>{@code tikz(scenario, options)} → {@code {"ok":true,"standalone":"...","body":"..."}}: the
  *       drawing as a TikZ figure (a document for pdflatex, and the picture for {@code \input});
  *       options on {@link #tikz}.</li>
@@ -279,7 +281,10 @@ public final class JsonFacade {
      *       "atMostMissing":2}} — families path [n], cycle [n], grid [k,l], complete [n],
      *       bipartite [a,b], hypercube [d], random [n,m] (with {@code seed}); {@code s}, {@code t},
      *       {@code seed}, {@code atMostMissing} optional; or {@code {"kind":"host","family":"given",
-     *       "scenario":{…}}} to use a drawn graph;</li>
+     *       "scenario":{…}}} to use a drawn graph; or {@code {"kind":"host","family":"import",
+     *       "text":"…GraphML or DOT…","fileName":"h.graphml","format":"graphml","s":…,"t":…,
+     *       "literalKey":"literal","weightKey":"weight","atMostMissing":k}} to read a graph file
+     *       (everything but {@code text} optional; see {@link #importGraph});</li>
      *   <li>{@code {"kind":"compose","outer":{scenario},"inner":{scenario}}}.</li>
      * </ul>
      * Answer: {@code {"ok":true,"scenario":{format v1 object},"stats":{"vertices","edges",
@@ -294,6 +299,94 @@ public final class JsonFacade {
             m.put("ok", true);
             m.put("scenario", ScenarioWriter.toJson(b.scenario()));
             m.put("stats", b.stats());
+            return Json.write(m);
+        } catch (Throwable e) {
+            return fail(e);
+        }
+    }
+
+    /**
+     * Opens a GraphML or DOT file as a host graph, for the page (the command line's
+     * {@code build host import} reads the same files through jgrapht-io). It runs the build request
+     * {@code {"kind":"host","family":"import","text":…, …options}} through {@link BuildRequest},
+     * like {@link #build}, after filling in s and t, and also describes the file so that the page
+     * can offer choices. Options (all optional): {@code fileName} (its ending names the format),
+     * {@code format} ({@code graphml}, {@code dot}; without either the text tells), {@code s},
+     * {@code t} (default: the vertices the file marks {@code role = s} / {@code t}, else the first
+     * and the last vertex), {@code literalKey} (the edge attribute holding each edge's literal;
+     * default one variable per edge), {@code weightKey} (default {@code weight}; {@code ""}: every
+     * weight 1), {@code atMostMissing}, {@code build} ({@code false}: describe only).
+     *
+     * <p>Answer: {@code {"ok":true,"format":"graphml"|"dot","formatTitle","vertices":[ids in file
+     * order],"edges":m,"edgeAttributes":[{"name","edges":how many edges have it}],"marked":{"s","t"}
+     * (ids or null),"s","t","scenario":{format v1},"stats":{…}}} (scenario and stats unless
+     * {@code build} is false), or the error envelope: {@code graph-file} at {@code $.text} with the
+     * line and column, or a build error at its option path ({@code $.s}, {@code $.graph.edges[3]}).
+     * Cost: O(file size) plus the host builder's.
+     */
+    public static String importGraph(String text, String optionsJson) {
+        try {
+            Map<String, Object> request = new LinkedHashMap<>(ScenarioReader.options(optionsJson));
+            for (String k : request.keySet()) {
+                if (!List.of("fileName", "format", "s", "t", "literalKey", "weightKey", "atMostMissing", "build")
+                        .contains(k)) {
+                    throw new ScenarioException("option", "$." + k, "unknown import option \"" + k + "\" (known:"
+                            + " fileName, format, s, t, literalKey, weightKey, atMostMissing, build)");
+                }
+            }
+            boolean build = !Boolean.FALSE.equals(request.remove("build"));
+            request.put("kind", "host");
+            request.put("family", "import");
+            request.put("text", text);
+            spanwright.io.GraphFile file = BuildRequest.graphFile(request);
+            if (file.vertexCount() < 2) {
+                throw new ScenarioException("graph-file", "$.text", "the file has " + file.vertexCount() + " vert"
+                        + (file.vertexCount() == 1 ? "ex" : "ices") + "; st-connectivity needs at least two, s and t");
+            }
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("ok", true);
+            m.put("format", file.format().name().toLowerCase(java.util.Locale.ROOT));
+            m.put("formatTitle", file.format().title());
+            m.put("vertices", new ArrayList<Object>(file.vertexIds()));
+            m.put("edges", file.edges().size());
+            Map<String, Integer> counts = new LinkedHashMap<>();
+            for (spanwright.io.GraphFile.Link l : file.edges()) {
+                for (String k : l.attributes().keySet()) {
+                    counts.put(k, counts.getOrDefault(k, 0) + 1);
+                }
+            }
+            List<Object> attributes = new ArrayList<>();
+            for (Map.Entry<String, Integer> e : counts.entrySet()) {
+                Map<String, Object> a = new LinkedHashMap<>();
+                a.put("name", e.getKey());
+                a.put("edges", e.getValue());
+                attributes.add(a);
+            }
+            m.put("edgeAttributes", attributes);
+            String[] marked = new String[2];
+            Map<String, Object> mk = new LinkedHashMap<>();
+            for (int i = 0; i < 2; i++) {
+                String end = i == 0 ? "s" : "t";
+                String v = file.vertexWith(spanwright.io.GraphFile.ROLE, end);
+                marked[i] = v == null || v.startsWith("?") ? null : v;
+                mk.put(end, marked[i]);
+            }
+            m.put("marked", mk);
+            String s = request.get("s") == null || request.get("s") == Json.NULL ? null
+                    : ScenarioReader.string(request.get("s"), "$.s");
+            String t = request.get("t") == null || request.get("t") == Json.NULL ? null
+                    : ScenarioReader.string(request.get("t"), "$.t");
+            s = s != null ? s : marked[0] != null ? marked[0] : file.vertexIds().get(0);
+            t = t != null ? t : marked[1] != null ? marked[1] : file.vertexIds().get(file.vertexCount() - 1);
+            m.put("s", s);
+            m.put("t", t);
+            if (build) {
+                request.put("s", s);
+                request.put("t", t);
+                spanwright.reduction.Built b = BuildRequest.run(request);
+                m.put("scenario", ScenarioWriter.toJson(b.scenario()));
+                m.put("stats", b.stats());
+            }
             return Json.write(m);
         } catch (Throwable e) {
             return fail(e);

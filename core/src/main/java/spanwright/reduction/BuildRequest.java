@@ -1,6 +1,8 @@
 package spanwright.reduction;
 
 import spanwright.model.ScenarioException;
+import spanwright.io.GraphFile;
+import spanwright.io.GraphTextReader;
 import spanwright.io.Json;
 import spanwright.io.ScenarioReader;
 import java.util.ArrayList;
@@ -55,6 +57,9 @@ public final class BuildRequest {
                 if (r.get("atMostMissing") != null && r.get("atMostMissing") != Json.NULL) {
                     missing = wholeNumber(r.get("atMostMissing"), "$.atMostMissing", 0);
                 }
+                if (family.equals("import")) {
+                    return imported(r, graphFile(r), s, t, missing);
+                }
                 if (family.equals("given")) {
                     Object sc = r.get("scenario");
                     if (sc == null) {
@@ -102,6 +107,37 @@ public final class BuildRequest {
                 throw new ScenarioException("kind", "$.kind", "unknown build kind \"" + kind
                         + "\" (known: formula, tree, host, compose)");
         }
+    }
+
+    /**
+     * The graph file of an import request ({@code "text"}, and {@code "format"} or
+     * {@code "fileName"} or neither: then the format is told from the text), read by
+     * {@link GraphTextReader} (GraphML or DOT; never jgrapht-io, which the page cannot run).
+     *
+     * @throws ScenarioException {@code missing} ({@code $.text}), {@code format}, {@code graph-file}
+     *     ({@code $.text}, the message naming line and column)
+     */
+    public static GraphFile graphFile(Map<String, Object> r) {
+        Object text = r.get("text");
+        if (text == null || text == Json.NULL) {
+            throw new ScenarioException("missing", "$.text", "an imported host needs \"text\": the GraphML or DOT"
+                    + " file's contents");
+        }
+        String body = ScenarioReader.string(text, "$.text");
+        GraphFile.Format format = GraphTextReader.formatOf(optString(r, "format", null), optString(r, "fileName", null),
+                body, "$.text");
+        return GraphTextReader.read(body, format, "$.text");
+    }
+
+    /**
+     * Builds the host of an import request from its graph file: s and t as given (or the vertices
+     * the file marks {@code role = s}, {@code t}), literals from the edge attribute
+     * {@code "literalKey"} (or one variable per edge), weights from {@code "weightKey"} (default
+     * {@code weight}; {@code ""} for every weight 1), the promise from {@code atMostMissing}.
+     */
+    public static Built imported(Map<String, Object> r, GraphFile file, String s, String t, int atMostMissing) {
+        return HostGraphBuilder.imported(file, s, t, atMostMissing, optString(r, "literalKey", null),
+                optString(r, "weightKey", "weight"));
     }
 
     /** Reads an embedded scenario, its error paths placed under {@code prefix}. */

@@ -181,7 +181,8 @@ public final class HostGraphBuilder {
                 String lit = l.attributes().get(literalKey);
                 if (lit == null || lit.trim().isEmpty()) {
                     throw new ScenarioException("literal", where, name + " has no \"" + literalKey + "\" attribute;"
-                            + " give every edge one (a, !a or 1), or import without --literal-key for one variable per edge");
+                            + " give every edge one (a, !a or 1), or import with one variable per edge (no literal attribute:"
+                            + " leave out --literal-key)");
                 }
                 h.literals.add(lit.trim());
             }
