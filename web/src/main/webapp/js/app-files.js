@@ -1,5 +1,6 @@
 /*
- * Spanwright page: where scenarios come from and go to. Opening files, the gallery and share links
+ * Spanwright page: where scenarios come from and go to. Opening files (scenario JSON, or a graph as
+ * GraphML or DOT through the engine's importGraph), the gallery and share links
  * (bad input never replaces the work), saving and exports, the autosave in localStorage with its
  * guard against a second tab, the kept earlier work, the Open link box, and the scenario the page
  * starts with. The parts are shared through self.SwPage (see app-state.js).
@@ -166,12 +167,116 @@
     });
   }
 
+  // ------------------------------------------------------------------ graph files (GraphML, DOT)
+
+  /* A graph file becomes a scenario in the engine (JsonFacade.importGraph: the page's own GraphML
+   * and DOT readers, then the host-graph builder the command line uses). The dialog asks for s and
+   * t (the file's role marks, else its first and last vertex), where each edge's condition comes
+   * from and which attribute holds the weights; the scenario then opens like a file, as a new undo
+   * step. A file the engine cannot read is reported with its line and column, and the work stays. */
+  const GRAPH_ENDINGS = [".graphml", ".xml", ".dot", ".gv"];
+  const NEW_VARIABLE = "\u0000one-per-edge", NO_WEIGHT = "\u0000none";
+  const imp = { name: "", text: "", info: null };
+
+  function isGraphFile(name, text) {
+    const lower = String(name).toLowerCase();
+    if (GRAPH_ENDINGS.some(function (e) { return lower.endsWith(e); })) return true;
+    if (lower.endsWith(".json")) return false;
+    return !/^\s*[{\[]/.test(text);   // not JSON-looking: let the engine tell the format from the text
+  }
+
+  function fillSelect(sel, options, chosen) {
+    sel.textContent = "";
+    options.forEach(function (o) {
+      const op = document.createElement("option");
+      op.value = o.value;
+      op.textContent = o.label;
+      sel.appendChild(op);
+    });
+    sel.value = chosen;
+  }
+
+  function importError(r) {
+    const e = (r && r.error) || {};
+    const where = e.path && e.path !== "$" && e.path !== "$.text" ? " (at " + e.path + ")" : "";
+    return (e.message || "the engine could not read it") + where;
+  }
+
+  function openGraphFile(name, text) {
+    return state.bridge.call("importGraph", text, JSON.stringify({ fileName: name, build: false })).then(function (r) {
+      if (!r.ok) {
+        document.body.dataset.importStatus = "refused";
+        P.notify("Could not open file '" + name + "': " + importError(r) + ". Your current work is unchanged.", "error");
+        return false;
+      }
+      imp.name = name; imp.text = text; imp.info = r;
+      const vertices = r.vertices.map(function (v) { return { value: v, label: v }; });
+      const mark = function (end) { return r.marked[end] === r[end] ? " (marked " + end + " in the file)" : ""; };
+      fillSelect($("import-s"), vertices, r.s);
+      fillSelect($("import-t"), vertices, r.t);
+      const attrs = r.edgeAttributes || [];
+      const every = function (n) { return attrs.some(function (a) { return a.name === n && a.edges === r.edges; }); };
+      fillSelect($("import-literal"), [{ value: NEW_VARIABLE, label: "a new variable per edge" }].concat(attrs.map(function (a) {
+        return { value: a.name, label: "the attribute '" + a.name + "' (" + a.edges + " of " + r.edges + " edges)" };
+      })), every("literal") ? "literal" : NEW_VARIABLE);
+      const hasWeight = attrs.some(function (a) { return a.name === "weight"; });
+      fillSelect($("import-weight"), [{ value: NO_WEIGHT, label: "none: every weight 1" }].concat(attrs.map(function (a) {
+        return { value: a.name, label: "the attribute '" + a.name + "'" };
+      })), hasWeight ? "weight" : NO_WEIGHT);
+      $("import-about").textContent = "'" + name + "': " + r.formatTitle + ", " + r.vertices.length + " vertices, " + r.edges + " edges." +
+        (mark("s") || mark("t") ? " s and t as the file marks them." : " s and t: the first and the last vertex, unless you choose others.");
+      $("import-error").hidden = true;
+      $("import-state").textContent = "";
+      $("import-open").disabled = false;
+      document.body.dataset.importStatus = "asking";
+      const dlg = $("import-dialog");
+      if (!dlg.open) dlg.showModal();
+      $("import-s").focus();
+      return true;
+    });
+  }
+
+  function importChosen() {
+    const opts = { fileName: imp.name, s: $("import-s").value, t: $("import-t").value };
+    if ($("import-literal").value !== NEW_VARIABLE) opts.literalKey = $("import-literal").value;
+    opts.weightKey = $("import-weight").value === NO_WEIGHT ? "" : $("import-weight").value;
+    $("import-open").disabled = true;
+    $("import-state").textContent = "Building…";
+    const name = imp.name;
+    state.bridge.call("importGraph", imp.text, JSON.stringify(opts)).then(function (r) {
+      $("import-open").disabled = false;
+      $("import-state").textContent = "";
+      if (!r.ok) {
+        $("import-error").textContent = "Cannot open it so: " + importError(r) + ".";
+        $("import-error").hidden = false;
+        document.body.dataset.importStatus = "error";
+        return;
+      }
+      imp.text = "";   // consumed: closing the dialog now is no cancellation
+      $("import-dialog").close();
+      loadText("graph file '" + name + "'", JSON.stringify(r.scenario), { why: "replaced by graph file '" + name + "'" }).then(function (ok) {
+        document.body.dataset.importStatus = ok ? "opened" : "refused";
+        if (ok) P.notify("Opened '" + name + "' as st-connectivity from " + r.s + " to " + r.t + " (" + r.stats.variables + " variables). Undo brings back what you had.", "info");
+      });
+    });
+  }
+  $("import-open").addEventListener("click", importChosen);
+  $("import-cancel").addEventListener("click", function () { $("import-dialog").close(); });
+  $("import-dialog").addEventListener("close", function () {
+    if (imp.text) { document.body.dataset.importStatus = "cancelled"; imp.text = ""; }
+  });
+
   $("open-file").addEventListener("change", function () {
     const file = this.files && this.files[0];
     if (!file) return;
     const reader = new FileReader();
     const input = this;
-    reader.onload = function () { loadText("file '" + file.name + "'", String(reader.result)).then(function (ok) { if (ok) P.notify("Opened '" + file.name + "'. Undo brings back what you had.", "info"); }); input.value = ""; };
+    reader.onload = function () {
+      const text = String(reader.result);
+      input.value = "";
+      if (isGraphFile(file.name, text)) { openGraphFile(file.name, text); return; }
+      loadText("file '" + file.name + "'", text).then(function (ok) { if (ok) P.notify("Opened '" + file.name + "'. Undo brings back what you had.", "info"); });
+    };
     reader.onerror = function () { P.notify("Could not read file '" + file.name + "'. Your current work is unchanged.", "error"); input.value = ""; };
     reader.readAsText(file);
   });

@@ -21,7 +21,7 @@
   "use strict";
 
   const EXPORTED = ["validate", "analyze", "startAnalysis", "stepAnalysis", "finishAnalysis",
-    "cancelAnalysis", "detail", "encodeShare", "decodeShare", "renameVariable", "optimize", "optimizeStart", "optimizeStep", "optimizeFinish", "optimizeStop", "optimizeCancel", "build",
+    "cancelAnalysis", "detail", "encodeShare", "decodeShare", "renameVariable", "optimize", "optimizeStart", "optimizeStep", "optimizeFinish", "optimizeStop", "optimizeCancel", "build", "importGraph",
     "bounds", "simulate", "sweepFamilies", "sweepStart", "sweepStep", "sweepFinish", "sweepCancel", "sweepReport"];
 
   /* Runs inside the worker. Written as a function so that its text can go into the Blob. */

@@ -88,6 +88,11 @@ public final class Exports {
     }
 
     @JSExport
+    public static String importGraph(String text, String optionsJson) {
+        return JsonFacade.importGraph(text, optionsJson);
+    }
+
+    @JSExport
     public static String bounds(String scenarioJson) {
         return JsonFacade.bounds(scenarioJson);
     }
