@@ -75,10 +75,10 @@ final class ExportCommand {
         for (String w : sc.warnings()) {
             err.println("spanwright: warning: " + w);
         }
-        long mask = input == null ? -1 : SimulationJson.focus(input, sc, "--input");
+        boolean[] x = input == null ? null : SimulationJson.bits(input, sc, "--input");
         TikzFigure.Text tikz = null;
         if (outputs.containsKey("--tikz") || outputs.containsKey("--tikz-body")) {
-            tikz = TikzFigure.draw(sc, mask, null);
+            tikz = TikzFigure.draw(sc, x, null);
         }
         for (Map.Entry<String, String> o : outputs.entrySet()) {
             String text;

@@ -25,13 +25,16 @@ import spanwright.model.Scenario;
  * <p>Contract (stable; web code relies on it):
  * <ul>
  *   <li>{@code validate(scenario)} → {@code {"ok":true,"warnings":[...],"variables":[...],
- *       "domainSize":N}}</li>
+ *       "domainSize":N,"method":"enumerate"|"structure","methodReason":"…"}} (the method
+ *       {@code analyze} would use, and why)</li>
  *   <li>{@code analyze(scenario, withInputs)} → {@code {"ok":true,"result":{...}}}, result having
  *       the keys of {@code analyze --json} (title, variables, vertices, edges, domainSize,
  *       reduction, positive, negative, complexity, histogram; and inputs when asked).</li>
  *   <li>{@code startAnalysis(scenario)} → {@code {"ok":true,"job":ID,"domainSize":N,
- *       "maxListedInputs":L}} (inputs are listed only when N ≤ L; otherwise withInputs is refused
- *       with code {@code too-many-inputs});
+ *       "maxListedInputs":L,"method":"enumerate","methodReason":"…"}} (inputs are listed only
+ *       when N ≤ L; otherwise withInputs is refused with code {@code too-many-inputs}); when
+ *       {@link Analysis#choose} picks structure there is nothing to step: {@code "job":null,
+ *       "method":"structure"}, and the caller runs {@code analyze} (one call);
  *       {@code stepAnalysis(ID, maxInputs)} → {@code {"ok":true,"done":bool,"processed":k,
  *       "total":N}}; {@code finishAnalysis(ID, withInputs)} → like analyze;
  *       {@code cancelAnalysis(ID)}. Single-threaded; for a worker that reports progress.</li>
@@ -103,19 +106,38 @@ public final class JsonFacade {
         return Json.write(m);
     }
 
+    /**
+     * Reads and checks a scenario without analysing it. The domain is built (and an empty promise
+     * refused) only when {@link Analysis#choose} would enumerate it; beyond enumeration (a host
+     * graph of 60 edge variables, say) {@code domainSize} is 2^n, never listed, and
+     * {@code method} says {@code "structure"}.
+     */
     public static String validate(String scenarioJson) {
         try {
             Scenario sc = ScenarioReader.read(scenarioJson);
-            InputDomain d = InputDomain.of(sc);
+            Analysis.Choice choice = Analysis.choose(sc, Analysis.Method.AUTO);
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
             m.put("warnings", new ArrayList<Object>(sc.warnings()));
             m.put("variables", new ArrayList<Object>(sc.variables()));
-            m.put("domainSize", d.size());
+            m.put("domainSize", domainSize(sc, choice));
+            m.put("method", choice.method().word);
+            m.put("methodReason", choice.reason());
             return Json.write(m);
         } catch (Throwable e) {
             return fail(e);
         }
+    }
+
+    /**
+     * The number of inputs: the enumerated domain's size, or 2^n (as a JSON number, null beyond
+     * the range of a double) when the structural method runs on the whole cube.
+     */
+    private static Object domainSize(Scenario sc, Analysis.Choice choice) {
+        if (choice.method() == Analysis.Method.ENUMERATE) {
+            return InputDomain.of(sc).size();
+        }
+        return ResultJson.num(Math.pow(2, sc.variableCount()));
     }
 
     public static String analyze(String scenarioJson, boolean withInputs) {
@@ -137,6 +159,18 @@ public final class JsonFacade {
     public static String startAnalysis(String scenarioJson) {
         try {
             Scenario sc = ScenarioReader.read(scenarioJson);
+            Analysis.Choice choice = Analysis.choose(sc, Analysis.Method.AUTO);
+            if (choice.method() == Analysis.Method.STRUCTURE) {
+                // nothing to step through: the caller runs analyze (one call, the structural engine)
+                Map<String, Object> m = new LinkedHashMap<>();
+                m.put("ok", true);
+                m.put("job", Json.NULL);
+                m.put("domainSize", domainSize(sc, choice));
+                m.put("maxListedInputs", Analysis.MAX_LISTED_INPUTS);
+                m.put("method", choice.method().word);
+                m.put("methodReason", choice.reason());
+                return Json.write(m);
+            }
             AnalysisRun run = Analysis.start(sc);
             int id = nextJob++;
             // a page that forgets to finish or cancel must not hold every old run's arrays
@@ -150,6 +184,8 @@ public final class JsonFacade {
             m.put("domainSize", run.total());
             // finishAnalysis lists rows only up to this many inputs (the page asks for them only then)
             m.put("maxListedInputs", Analysis.MAX_LISTED_INPUTS);
+            m.put("method", choice.method().word);
+            m.put("methodReason", choice.reason());
             return Json.write(m);
         } catch (Throwable e) {
             return fail(e);
@@ -198,12 +234,15 @@ public final class JsonFacade {
     public static String detail(String scenarioJson, String input) {
         try {
             Scenario sc = ScenarioReader.read(scenarioJson);
-            long mask = SimulationJson.focus(input, sc, "$.input");
+            // any number of variables: one input's witness never needs the domain
+            boolean[] x = SimulationJson.bits(input, sc, "$.input");
+            spanwright.analysis.InputDetail d = StructuralAnalysis.detail(sc, x);
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
-            m.putAll(ResultJson.detail(sc, Analysis.detail(sc, mask)));
-            // an input outside the promise can still be inspected, but say so
-            m.put("inDomain", sc.promise().allows(mask));
+            m.putAll(ResultJson.detail(sc, d));
+            // an input outside the promise can still be inspected, but say so (a promise has at
+            // most 63 variables, so an input of more has a mask only without one)
+            m.put("inDomain", d.mask < 0 || sc.promise().allows(d.mask));
             return Json.write(m);
         } catch (Throwable e) {
             return fail(e);
@@ -221,7 +260,7 @@ public final class JsonFacade {
     public static String tikz(String scenarioJson, String optionsJson) {
         try {
             Scenario sc = ScenarioReader.read(scenarioJson);
-            long mask = -1;
+            boolean[] x = null;
             double positive = Double.NaN;
             double negative = Double.NaN;
             boolean given = false;
@@ -231,7 +270,7 @@ public final class JsonFacade {
                 switch (e.getKey()) {
                     case "input":
                         if (v != Json.NULL) {
-                            mask = SimulationJson.focus(ScenarioReader.string(v, path), sc, "$.input");
+                            x = SimulationJson.bits(ScenarioReader.string(v, path), sc, "$.input");
                         }
                         break;
                     case "positive":
@@ -253,7 +292,7 @@ public final class JsonFacade {
                         throw ScenarioReader.unknownOption(e.getKey(), "input, positive, negative");
                 }
             }
-            TikzFigure.Text t = TikzFigure.draw(sc, mask, given ? new double[] {positive, negative} : null);
+            TikzFigure.Text t = TikzFigure.draw(sc, x, given ? new double[] {positive, negative} : null);
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
             m.put("standalone", t.standalone);

@@ -72,11 +72,33 @@ public final class SimulationJson {
     public static long focus(String input, Scenario scenario, String path) {
         long mask = Inputs.parse(input, scenario.variableCount());
         if (mask < 0) {
-            throw new ScenarioException("input-string", path, "\"" + input + "\" is not an input: write "
-                    + scenario.variableCount() + " characters 0 or 1 ("
-                    + String.join(", ", scenario.variables()) + ")");
+            throw notAnInput(input, scenario, path);
         }
         return mask;
+    }
+
+    /**
+     * The values of an input string for this scenario, for any number of variables.
+     *
+     * @throws ScenarioException code {@code input-string} at {@code path}
+     */
+    public static boolean[] bits(String input, Scenario scenario, String path) {
+        boolean[] x = Inputs.parseBits(input, scenario.variableCount());
+        if (x == null) {
+            throw notAnInput(input, scenario, path);
+        }
+        return x;
+    }
+
+    private static ScenarioException notAnInput(String input, Scenario scenario, String path) {
+        int n = scenario.variableCount();
+        List<String> names = scenario.variables();
+        String shown = n <= 12 ? String.join(", ", names)
+                : String.join(", ", names.subList(0, 6)) + ", …, " + names.get(n - 1);
+        String got = input == null ? "nothing" : input.length() <= 80 ? "\"" + input + "\""
+                : "a string of " + input.length() + " characters";
+        return new ScenarioException("input-string", path, got + " is not an input: write " + n
+                + " characters 0 or 1 (" + shown + ")");
     }
 
     private static double number(Object v, String path) {

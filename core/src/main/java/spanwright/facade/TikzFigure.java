@@ -5,15 +5,17 @@ import java.util.List;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
 import spanwright.analysis.InputDetail;
+import spanwright.analysis.StructuralAnalysis;
 import spanwright.io.NumberText;
 import spanwright.io.TikzWriter;
+import spanwright.model.Inputs;
 import spanwright.model.Normalisation;
 import spanwright.model.Scenario;
 
 /**
  * The drawing as a TikZ figure, with one input's witness and the caption line: the input and
- * its R or C ({@link Analysis#detail}), the bound W₊, W₋, √(W₊W₋) ({@link Analysis#run}, unless
- * the caller passes them), the normalisation and the caution ({@link Normalisation}). The
+ * its R or C ({@link StructuralAnalysis#detail}, any number of variables), the bound W₊, W₋,
+ * √(W₊W₋) (by the method {@link Analysis#choose} picks, unless the caller passes them), the normalisation and the caution ({@link Normalisation}). The
  * command line's {@code export --tikz} and {@link JsonFacade#tikz} both come here, so the page
  * and the command line write the same figure. Text by {@link TikzWriter}. Cost: that of the
  * analysis (skipped when W₊ and W₋ are given) plus O(|V|³) for the input's witness. No threads,
@@ -38,13 +40,31 @@ public final class TikzFigure {
     /**
      * @param mask the focused input, or −1 for none (every edge drawn solid)
      * @param bound {W₊, W₋} when the caller has them (NaN for a side with no input), or null to
-     *     have them computed by {@link Analysis#run}
+     *     have them computed (see {@link #draw(Scenario, boolean[], double[])})
      */
     public static Text draw(Scenario sc, long mask, double[] bound) {
+        if (mask < 0) {
+            return draw(sc, (boolean[]) null, bound);
+        }
+        int n = sc.variableCount();
+        boolean[] x = new boolean[n];
+        for (int i = 0; i < n; i++) {
+            x[i] = Inputs.bit(mask, i, n);
+        }
+        return draw(sc, x, bound);
+    }
+
+    /**
+     * @param x the focused input (variable 0 first; any number of variables), or null for none
+     * @param bound {W₊, W₋} when the caller has them (NaN for a side with no input), or null to
+     *     have them computed by the method {@link Analysis#choose} picks (enumeration, or the
+     *     structural engine beyond it)
+     */
+    public static Text draw(Scenario sc, boolean[] x, double[] bound) {
         List<String> caption = new ArrayList<>();
         TikzWriter.Focus focus = null;
-        if (mask >= 0) {
-            InputDetail d = Analysis.detail(sc, mask);
+        if (x != null) {
+            InputDetail d = StructuralAnalysis.detail(sc, x);
             boolean connected = d.witness.connected;
             focus = new TikzWriter.Focus(connected, d.present, d.witness.current, d.witness.potential);
             caption.add("Input x = " + d.input + " (" + String.join(", ", sc.variables()) + "): "
@@ -52,7 +72,7 @@ public final class TikzFigure {
                             + " (effective resistance; arrows: the unit s-t current, width by its size)"
                             : "s and t not connected, C = " + NumberText.sig(d.witness.value, 6)
                             + " (effective capacitance; vertex colour: potential)")
-                    + (sc.promise().allows(mask) ? "" : "; this input is outside the promise")
+                    + (d.mask < 0 || sc.promise().allows(d.mask) ? "" : "; this input is outside the promise")
                     + ". Solid: present in G(x); dashed: absent.");
         } else {
             caption.add("No input focused: every edge drawn with its literal (and its weight when not 1).");
@@ -62,6 +82,10 @@ public final class TikzFigure {
         if (bound != null) {
             wp = bound[0];
             wn = bound[1];
+        } else if (Analysis.choose(sc, Analysis.Method.AUTO).method() == Analysis.Method.STRUCTURE) {
+            StructuralAnalysis.Result r = StructuralAnalysis.run(sc);
+            wp = r.positive().worst() == null ? Double.NaN : r.positive().value();
+            wn = r.negative().worst() == null ? Double.NaN : r.negative().value();
         } else {
             AnalysisResult r = Analysis.run(sc);
             wp = r.worstPositive() < 0 ? Double.NaN : r.maxResistance();

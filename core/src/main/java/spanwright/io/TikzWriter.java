@@ -67,8 +67,9 @@ public final class TikzWriter {
         double captionHeight = 0.5 + 0.4 * (caption.size() + Math.ceil(chars / (textWidth * 7.0)));
         double height = l.height + 1.6 + captionHeight + (focus != null && !focus.positive ? 1.2 : 0);
         StringBuilder sb = new StringBuilder();
-        sb.append("% Spanwright figure: compile with pdflatex; the body between the markers can be \\input on its own.\n");
+        // \documentclass first, so the file is recognised as a LaTeX document by its first line
         sb.append("\\documentclass{article}\n");
+        sb.append("% Spanwright figure: compile with pdflatex; the body between the markers can be \\input on its own.\n");
         sb.append("\\usepackage[paperwidth=").append(num(Math.ceil(width))).append("cm,paperheight=")
                 .append(num(Math.ceil(height))).append("cm,margin=0.5cm]{geometry}\n");
         sb.append("\\usepackage{tikz}\n");

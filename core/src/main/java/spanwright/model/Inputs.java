@@ -37,6 +37,27 @@ public final class Inputs {
         return m;
     }
 
+    /**
+     * Parses an input string of exactly {@code n} characters '0'/'1', for any number of variables
+     * (graph instances have one variable per edge, often more than a mask holds).
+     *
+     * @return the values, variable 0 first, or null when the string has the wrong length or alphabet
+     */
+    public static boolean[] parseBits(String s, int n) {
+        if (s == null || s.length() != n) {
+            return null;
+        }
+        boolean[] x = new boolean[n];
+        for (int i = 0; i < n; i++) {
+            char c = s.charAt(i);
+            if (c != '0' && c != '1') {
+                return null;
+            }
+            x[i] = c == '1';
+        }
+        return x;
+    }
+
     /** Value of variable {@code i} in {@code mask} of {@code n} variables. */
     public static boolean bit(long mask, int i, int n) {
         return ((mask >>> (n - 1 - i)) & 1L) != 0;

@@ -100,7 +100,8 @@ class JsonFacadeTest {
     @Test
     void validateOk() {
         Map<String, Object> m = ok(JsonFacade.validate(PARALLEL));
-        assertEquals(List.of("ok", "warnings", "variables", "domainSize"), List.copyOf(m.keySet()));
+        assertEquals(List.of("ok", "warnings", "variables", "domainSize", "method", "methodReason"), List.copyOf(m.keySet()));
+        assertEquals("enumerate", m.get("method"));
         assertEquals(List.of(), m.get("warnings"));
         assertEquals(List.of("a", "b"), m.get("variables"));
         assertEquals(4.0, m.get("domainSize"));
@@ -174,7 +175,7 @@ class JsonFacadeTest {
     void stepwiseAnalysisGivesTheSameResultAsAnalyze() throws IOException {
         String text = defaultScenario();
         Map<String, Object> start = ok(JsonFacade.startAnalysis(text));
-        assertEquals(List.of("ok", "job", "domainSize", "maxListedInputs"), List.copyOf(start.keySet()));
+        assertEquals(List.of("ok", "job", "domainSize", "maxListedInputs", "method", "methodReason"), List.copyOf(start.keySet()));
         int job = ((Double) start.get("job")).intValue();
         int total = ((Double) start.get("domainSize")).intValue();
         assertEquals(64, total); // derived: 6 variables, no promise, 2^6 inputs
