@@ -86,6 +86,10 @@
       { selector: "node.ramp", style: { "background-color": "data(fill)", "color": "data(ink)" } },
       { selector: "node.wide-label", style: { "text-valign": "bottom", "text-margin-y": 4 * k, "text-background-opacity": 0.85, "text-background-padding": 2 } },
       { selector: "node.ramp.wide-label", style: { "color": "#111" } },
+      // dense drawings: a vertex's label sits off its lower right corner, clear of the edges along
+      // the rows and columns of a grid (whose absent, dashed edges would otherwise hide under it)
+      { selector: "node.wide-label.dense", style: { "text-valign": "bottom", "text-halign": "right", "text-margin-x": -6 * k, "text-margin-y": -2 * k,
+        "text-background-opacity": 0.6, "text-justification": "left" } },
       { selector: "node:selected", style: { "overlay-color": "#000", "overlay-opacity": 0.15, "border-style": "double", "border-width": 5 * k } },
       { selector: "node.pending", style: { "border-style": "dotted", "border-width": 5 * k } },
       { selector: "edge", style: {
@@ -119,6 +123,7 @@
     includeSourceLabels: false, includeTargetLabels: false, includeOverlays: false, includeUnderlays: false,
     includeOutlines: false, useCache: false };
   const LABEL_GAP = 2;   // model units kept free around a label
+  const DENSE_EDGES = 30; // from this many edges, labels that do not fit are cut down (placeLabels)
   const READABLE_PX = 11; // the smallest label size on screen, in CSS pixels
 
   function overlap(a, b, gap) {
@@ -135,7 +140,12 @@
    * edge label placed before it by at most 3 % of its area (label boxes include their padding).
    * The first try that fits is kept, or else the one that overlaps least. Measured with the
    * drawing's own label boxes, in model coordinates, so the result does not depend on zoom.
-   * Skipped above 400 edges, where the labels are unreadable anyway.
+   * A drawing of DENSE_EDGES edges or more whose labels do not all fit shows less rather than a
+   * pile of overlapping text: the conditions alone (no weights or focus values), and if those do not
+   * fit either, no edge labels (the hover caption and the edge list still give every edge's
+   * condition, weight and current); labelLevel ("full", "literal", "none") says which, and
+   * labelNote() says it in words for the legend. Skipped above 400 edges, where the labels are
+   * unreadable anyway.
    */
   GraphView.prototype.placeLabels = function () {
     const cy = this.cy;
@@ -143,50 +153,77 @@
     const full = 12 * k;
     const edges = cy.edges();
     if (edges.length > 400) {
-      cy.batch(function () { edges.forEach(function (e) { e.data({ shown: e.data("label"), fs: full, mx: 0, my: 0 }); }); });
+      cy.batch(function () { edges.forEach(function (e) { e.data({ shown: "", fs: full, mx: 0, my: 0 }); }); });
+      this.labelLevel = "none";
+      cy.container().dataset.edgeLabels = "none";
       return;
     }
-    const hard = [], soft = [];
+    const dense = edges.length >= DENSE_EDGES;
+    cy.nodes().toggleClass("dense", dense);
+    const hard = [], soft0 = [];
     cy.nodes().forEach(function (n) {
       hard.push(n.boundingBox(BODY_BOX));
-      if (n.data("label")) { const b = n.boundingBox(NODE_LABEL_BOX); if (b.w > 0 && b.h > 0) soft.push(b); }
+      if (n.data("label")) { const b = n.boundingBox(NODE_LABEL_BOX); if (b.w > 0 && b.h > 0) soft0.push(b); }
     });
-    let crowded = 0;
-    edges.forEach(function (e) {
-      const label = String(e.data("label") || "");
-      const parts = label.split(" · ");
-      const shapes = [label];
-      if (parts.length > 2) shapes.push(parts.slice(0, -1).join(" · ") + "\n" + parts[parts.length - 1]);
-      if (parts.length > 1) shapes.push(parts.join("\n"));
-      let best = null;
-      const sizes = [1, 0.85, 0.72, 0.6];
-      const a = e.source().position(), b = e.target().position();
-      const dx = (b.x - a.x) * 0.2, dy = (b.y - a.y) * 0.2;
-      const shifts = e.isLoop() ? [[0, 0]] : [[0, 0], [dx, dy], [-dx, -dy]];
-      for (let i = 0; i < sizes.length && !(best && best.fits); i++) {
-        for (let j = 0; j < shapes.length && !(best && best.fits); j++) {
-          for (let m = 0; m < shifts.length; m++) {
-            const t = { shown: shapes[j], fs: full * sizes[i], mx: shifts[m][0], my: shifts[m][1] };
-            e.data(t);
-            const box = e.boundingBox(EDGE_LABEL_BOX);
-            let h = 0, so = 0;
-            for (let q = 0; q < hard.length; q++) h += overlap(box, hard[q], LABEL_GAP);
-            for (let q = 0; q < soft.length; q++) so += overlap(box, soft[q], 0);
-            const fits = h === 0 && so <= 0.03 * box.w * box.h;
-            // a label that covers no vertex beats one that does, however crowded it is
-            const cost = (h > 0 ? 1e12 : 0) + 10 * h + so;
-            if (!best || (fits && !best.fits) || (!best.fits && cost < best.cost)) best = { t: t, box: box, cost: cost, fits: fits };
-            if (fits) break;
+    const place = function (level) {
+      const soft = soft0.slice();
+      let crowded = 0;
+      edges.forEach(function (e) {
+        const label = level === "full" ? String(e.data("label") || "") : level === "literal" ? String(e.data("lit") || "") : "";
+        if (!label) { e.data({ shown: "", fs: full, mx: 0, my: 0 }); return; }
+        const parts = label.split(" · ");
+        const shapes = [label];
+        if (parts.length > 2) shapes.push(parts.slice(0, -1).join(" · ") + "\n" + parts[parts.length - 1]);
+        if (parts.length > 1) shapes.push(parts.join("\n"));
+        let best = null;
+        // a dense drawing would have to zoom in far for small labels: there it shows fewer instead
+        const sizes = dense ? [1, 0.85] : [1, 0.85, 0.72, 0.6];
+        const a = e.source().position(), b = e.target().position();
+        const dx = (b.x - a.x) * 0.2, dy = (b.y - a.y) * 0.2;
+        const shifts = e.isLoop() ? [[0, 0]] : [[0, 0], [dx, dy], [-dx, -dy]];
+        for (let i = 0; i < sizes.length && !(best && best.fits); i++) {
+          for (let j = 0; j < shapes.length && !(best && best.fits); j++) {
+            for (let m = 0; m < shifts.length; m++) {
+              const t = { shown: shapes[j], fs: full * sizes[i], mx: shifts[m][0], my: shifts[m][1] };
+              e.data(t);
+              const box = e.boundingBox(EDGE_LABEL_BOX);
+              let h = 0, so = 0;
+              for (let q = 0; q < hard.length; q++) h += overlap(box, hard[q], LABEL_GAP);
+              for (let q = 0; q < soft.length; q++) so += overlap(box, soft[q], 0);
+              const fits = h === 0 && so <= 0.03 * box.w * box.h;
+              // a label that covers no vertex beats one that does, however crowded it is
+              const cost = (h > 0 ? 1e12 : 0) + 10 * h + so;
+              if (!best || (fits && !best.fits) || (!best.fits && cost < best.cost)) best = { t: t, box: box, cost: cost, fits: fits };
+              if (fits) break;
+            }
           }
         }
-      }
-      if (!best) return;
-      e.data(best.t);
-      if (!best.fits) crowded++;
-      soft.push(best.box);
-    });
+        if (!best) return;
+        e.data(best.t);
+        if (!best.fits) crowded++;
+        soft.push(best.box);
+      });
+      return crowded;
+    };
+    const levels = dense ? ["full", "literal", "none"] : ["full"];
+    let level = levels[0], crowded = 0;
+    for (let i = 0; i < levels.length; i++) {
+      level = levels[i];
+      crowded = place(level);
+      if (crowded === 0) break;
+    }
+    this.labelLevel = level;
+    cy.container().dataset.edgeLabels = level;
     cy.container().dataset.crowdedLabels = String(crowded);
     this.keepReadable(false);
+  };
+
+  /** The legend's words for what the edge labels leave out (see placeLabels), or "". */
+  GraphView.prototype.labelNote = function () {
+    const w = this.commonWeight === null || this.commonWeight === undefined ? "" : " · every edge has weight w = " + F.num(this.commonWeight);
+    if (this.labelLevel === "none") return " · edge labels hidden at this size: hover an edge" + w;
+    if (this.labelLevel === "literal") return " · edge labels: conditions only at this size (hover an edge for the rest)" + w;
+    return w;
   };
 
   function vertexLabel(id, s, t) {
@@ -195,9 +232,11 @@
     return id;
   }
 
-  function edgeLabel(e) {
+  /** The condition, and the weight unless it is 1 or every edge has the same one (said once in
+   *  the legend instead: labelNote). */
+  function edgeLabel(e, commonWeight) {
     const w = e.weight === undefined || e.weight === null ? 1 : e.weight;
-    return String(e.when) + (w === 1 ? "" : " · w=" + F.num(w));
+    return String(e.when) + (w === 1 || w === commonWeight ? "" : " · w=" + F.num(w));
   }
 
   /** Draws the scenario's graph (positions from the scenario; missing ones by a layout). */
@@ -214,9 +253,14 @@
         position: hasPos ? { x: v.x, y: v.y } : { x: 80 * i, y: 0 }, classes: cls });
     });
     const self_ = this;
+    // one weight shared by every edge (other than 1) is said once, in the legend
+    const weights = g.edges.map(function (e) { return e.weight === undefined || e.weight === null ? 1 : e.weight; });
+    const common = weights.length > 1 && weights[0] !== 1 && weights.every(function (w) { return w === weights[0]; }) ? weights[0] : null;
+    this.commonWeight = common;
     g.edges.forEach(function (e) {
-      els.push({ group: "edges", data: { id: e.id, source: e.u, target: e.v, label: edgeLabel(e), color: edgeColor(String(e.when)), base: edgeLabel(e),
-        shown: edgeLabel(e), fs: 12 * (self_.scale || 1), mx: 0, my: 0 } });
+      const label = edgeLabel(e, common);
+      els.push({ group: "edges", data: { id: e.id, source: e.u, target: e.v, label: label, color: edgeColor(String(e.when)), base: label,
+        lit: String(e.when), shown: label, fs: 12 * (self_.scale || 1), mx: 0, my: 0 } });
     });
     const selected = cy.$(":selected").map(function (x) { return x.id(); });
     cy.batch(function () {
