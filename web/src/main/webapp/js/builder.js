@@ -1,8 +1,9 @@
 /*
  * The "New from…" dialog: builds a scenario with the engine's builders (JsonFacade.build) from a
  * formula, a function (decision tree or diagram), a host graph family or a composition, with a
- * live preview (drawing, sizes, and for small domains the engine's W₊, W₋ and bound). "Open as
- * new scenario" loads it like a file: the current work goes on the undo stack, nothing is lost.
+ * live preview (drawing, sizes, and the engine's W₊, W₋ and bound: enumerated for small domains, by
+ * structure where the engine would use it, e.g. large host graphs). "Open as new scenario" loads it
+ * like a file: the current work goes on the undo stack, nothing is lost.
  * A bad formula or size is reported by the engine with the request path; the page names the field.
  */
 (function () {
@@ -239,21 +240,31 @@
     figures.id = "builder-figures";
     figures.className = "builder-figures";
     box.appendChild(figures);
-    if (nvars > PREVIEW_ANALYSIS_MAX_VARIABLES) {
-      figures.textContent = "W₊, W₋ and the bound are computed when you open it (" + nvars + " variables is more than the preview analyses).";
-      dlg.dataset.previewFigures = "skipped";
-      return;
-    }
     dlg.dataset.previewFigures = "running";
     st.busySince = performance.now();
-    st.task.run("analyze", JSON.stringify(sc), false).then(function (r) {
+    const text = JSON.stringify(sc);
+    // Small domains are enumerated in the preview; beyond, the preview analyses only when the
+    // engine says it would use its structural method (validate's "method"), not a long enumeration.
+    const method = nvars <= PREVIEW_ANALYSIS_MAX_VARIABLES ? Promise.resolve("enumerate")
+      : st.task.run("validate", text).then(function (v) { return v.cancelled ? null : v.ok ? v.method : "refused"; });
+    method.then(function (m) {
+      if (m === null || serial !== st.serial) return null;
+      if (m === "structure" || m === "enumerate") { figures.dataset.method = m; return st.task.run("analyze", text, false); }
+      figures.textContent = "W₊, W₋ and the bound are computed when you open it (" + nvars + " variables is more than the preview enumerates).";
+      dlg.dataset.previewFigures = "skipped";
+      return null;
+    }).then(function (r) {
+      if (!r) return;
       if (st.pending) { preview(); return; }
       if (serial !== st.serial || r.cancelled) return;
       figures.textContent = "";
       if (!r.ok) { figures.textContent = "Not analysed: " + ((r.error && r.error.message) || "unknown problem"); dlg.dataset.previewFigures = "error"; return; }
       const res = r.result;
       const pos = res.positive || {}, neg = res.negative || {};
-      [["W₊", "wplus", pos.count ? pos.maxResistance : null], ["W₋", "wminus", neg.count ? neg.maxCapacitance : null], ["bound √(W₊·W₋)", "bound", res.complexity]].forEach(function (q) {
+      // enumerated (positive.maxResistance) or by structure (maxResistance.value with its worst input)
+      const wp = res.positive ? (pos.count ? pos.maxResistance : null) : res.maxResistance && res.maxResistance.worst ? res.maxResistance.value : null;
+      const wm = res.negative ? (neg.count ? neg.maxCapacitance : null) : res.maxCapacitance && res.maxCapacitance.worst ? res.maxCapacitance.value : null;
+      [["W₊", "wplus", wp], ["W₋", "wminus", wm], ["bound √(W₊·W₋)", "bound", res.complexity]].forEach(function (q) {
         const d = document.createElement("div");
         d.textContent = q[0] + " = ";
         const v = document.createElement("span");
@@ -267,6 +278,12 @@
       const v = document.createElement("div");
       v.textContent = red.correct === true ? "✓ decides the function on every input" : red.correct === false ? "✗ does not decide the function" : "no function to check";
       figures.appendChild(v);
+      if (res.method === "structure") {
+        const how = document.createElement("div");
+        how.className = "small";
+        how.textContent = "By structure, without enumerating the " + nvars + "-variable cube.";
+        figures.appendChild(how);
+      }
       const c = document.createElement("div");
       c.className = "caution";
       c.textContent = "Asymptotic query-complexity bounds for the span-program algorithm (weight = resistance, each edge once), not run-time estimates for real hardware.";
