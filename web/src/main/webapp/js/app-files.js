@@ -363,6 +363,32 @@
     F.download(F.fileName(state.scenario.title, ".svg"), new Blob([text], { type: "image/svg+xml" }));
   });
 
+  /* The drawing as a TikZ figure, written by the engine (JsonFacade.tikz, as export --tikz): the
+   * input in focus with its currents or potentials, and a caption with W₊ and W₋ as the Summary
+   * shows them (passed in, so nothing is analysed again). */
+  $("export-tikz").addEventListener("click", function () {
+    const a = state.analysis;
+    const opts = { input: a && state.focus >= 0 ? P.xOf(a.codes[state.focus]) : null };
+    if (a && a.text === P.text()) {
+      const num = function (id) { const v = $(id).dataset.value; return v === "" || v === undefined ? null : Number(v); };
+      opts.positive = num("sum-wplus");
+      opts.negative = num("sum-wminus");
+    }
+    const b = $("export-tikz");
+    b.dataset.state = "running";
+    state.bridge.call("tikz", P.text(), JSON.stringify(opts)).then(function (r) {
+      if (!r.ok) {
+        b.dataset.state = "error";
+        P.notify("Could not make the TikZ figure: " + ((r.error && r.error.message) || "unknown problem") + (r.error && r.error.path ? " (at " + r.error.path + ")" : ""), "error");
+        return;
+      }
+      b.dataset.state = "done";
+      b.dataset.chars = String(r.standalone.length);
+      F.download(F.fileName(state.scenario.title, ".tex"), new Blob([r.standalone], { type: "application/x-tex" }));
+    });
+  });
+  P.hooks.engine.push(function () { $("export-tikz").disabled = !state.bridge.has("tikz"); });
+
   const gallery = (self.SpanwrightGallery || []).map(function (g) {
     let title = g.file;
     try { const o = JSON.parse(g.text); if (o && o.title) title = String(o.title); } catch (e) { /* shown by file name */ }

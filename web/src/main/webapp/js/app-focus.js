@@ -13,7 +13,8 @@
   const $ = function (id) { return document.getElementById(id); };
 
   function focusInput(x) {
-    const i = P.indexOfCode(P.codeOf(x));
+    let i = P.indexOfCode(P.codeOf(x));
+    if (i < 0 && state.analysis && state.analysis.xs) i = P.addCandidate(x);   // beyond enumeration: list it now
     if (i < 0) { P.notify("Input " + x + " is not in the list.", "info"); return; }
     if (P.viewPosOf(i) < 0) { $("filter").value = "all"; P.buildView(); }
     setFocus(i);
@@ -28,6 +29,13 @@
     const info = $("focus-info");
     const fl = a.flags[i];
     info.textContent = "";
+    if (a.xs) {   // one of the engine's candidates beyond enumeration (app-structure.js)
+      P.candidateFocusInfo(info, i);
+      P.scrollToFocus();
+      P.renderRows();
+      requestDetail(x);
+      return;
+    }
     const line1 = document.createElement("div");
     line1.className = "focus-line";
     const xs = document.createElement("span"); xs.id = "focus-x"; xs.textContent = x;
@@ -80,12 +88,12 @@
     const lines = document.createElement("div");
     lines.className = "legend-lines";
     if (!info) {
-      lines.textContent = "◇ s (source)  □ t (sink)  · edge label: condition (a, !a, 1) and weight w if not 1";
+      lines.textContent = "◇ s (source)  □ t (sink)  · edge label: condition (a, !a, 1) and weight w if not 1" + view.labelNote();
       lg.appendChild(lines);
       return;
     }
     lines.textContent = "solid: present in G(x) · dashed: absent" + (info.positive && !info.useRamp ? " · width ∝ |current i|, arrow = direction of the unit current s→t" : "") +
-      (!info.positive ? " · E = energy on an absent edge" : "");
+      (!info.positive && view.labelLevel === "full" ? " · E = energy on an absent edge" : "") + view.labelNote();
     lg.appendChild(lines);
     if (info.useRamp && isFinite(info.pmin)) {
       const bar = document.createElement("div");
@@ -101,7 +109,7 @@
   function worst(kind) {
     const a = state.analysis;
     if (!a) return;
-    const side = kind === "pos" ? a.result.positive : a.result.negative;
+    const side = a.worst ? { worst: a.worst[kind] } : kind === "pos" ? a.result.positive : a.result.negative;
     if (!side || !side.worst) { P.notify("There is no " + (kind === "pos" ? "positive" : "negative") + " input in the domain.", "info"); return; }
     focusInput(side.worst);
   }

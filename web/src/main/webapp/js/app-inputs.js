@@ -23,8 +23,15 @@
     for (let i = 0; i < a.n; i++) if (a.codes[i] === code) return i;
     return -1;
   }
-  function codeOf(x) { return parseInt(x, 2); }
+  /* A row's code is its input read as a binary number; beyond enumeration (the engine's
+   * candidates, app-structure.js) it is the candidate's number in a.xs, the input strings. */
+  function codeOf(x) {
+    const a = state.analysis;
+    if (a && a.xs) return a.xs.indexOf(x);
+    return parseInt(x, 2);
+  }
   function xOf(code) {
+    if (state.analysis && state.analysis.xs) return state.analysis.xs[code] || "";
     const n = state.analysis ? state.analysis.nvars : state.scenario.variables.length;
     if (n === 0) return "";
     let s = (code >>> 0).toString(2);
@@ -39,6 +46,8 @@
   function buildView() {
     const a = state.analysis;
     if (!a) return;
+    document.body.dataset.inputsList = a.xs ? "candidates" : "inputs";
+    if (a.xs) { P.buildCandidates(); return; }   // app-structure.js
     const filter = $("filter").value;
     const sort = $("sort").value;
     const idx = [];
@@ -73,6 +82,7 @@
     const a = state.analysis;
     const v = state.view;
     if (!a || !v) return;
+    if (a.xs) { P.renderCandidates(); return; }
     const first = Math.max(0, Math.floor(list.scrollTop / ROW_HEIGHT) - 5);
     const last = Math.min(v.length, first + Math.ceil(list.clientHeight / ROW_HEIGHT) + 10);
     const res = a.result;

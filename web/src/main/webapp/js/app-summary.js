@@ -30,8 +30,9 @@
     clearTimeout(progressTimer);
     progressTimer = setTimeout(function () { $("progress-row").hidden = false; }, 300);
     const started = performance.now();
-    const id = state.bridge.analyze(scenarioText, function (done, total) {
+    const id = state.bridge.analyze(scenarioText, function (done, total, info) {
       if (id !== state.job) return;
+      if (info && info.structure) { P.structureWorking(id, info); return; }   // app-structure.js
       $("progress").max = total || 1;
       $("progress").value = done;
       $("progress-text").textContent = F.count(done) + " / " + F.count(total) + " inputs";
@@ -45,6 +46,8 @@
       try { answer = JSON.parse(m.text); } catch (e) { answer = { ok: false, error: { message: "unreadable answer", path: "$" } }; }
       if (m.type === "analysis-error" || !answer.ok) { showAnalysisError(answer.error || {}); return; }
       $("timing").dataset.retried = m.retried ? "true" : "false";
+      P.showMethod(m.method, m.methodReason);   // app-structure.js
+      if (m.method === "structure") { P.showStructure(answer.result, m, scenarioText); return; }
       showAnalysis(answer.result, m.inputs, m.ms, m.total, performance.now() - started, scenarioText);
     });
     state.job = id;
@@ -86,7 +89,7 @@
   function showAnalysis(result, inputs, ms, total, wallMs, scenarioText) {
     $("error-box").hidden = true;
     document.body.classList.remove("stale");
-    const previousX = state.focus >= 0 && state.analysis ? state.analysis.codes[state.focus] : null;
+    const previousX = state.focus >= 0 && state.analysis ? P.xOf(state.analysis.codes[state.focus]) : null;
     const n = inputs ? inputs.codes.length : 0;
     state.analysis = { result: result, codes: inputs ? inputs.codes : new Int32Array(0), values: inputs ? inputs.values : new Float64Array(0),
       flags: inputs ? inputs.flags : new Uint8Array(0), n: n, nvars: (result.variables || state.scenario.variables).length,
@@ -133,7 +136,7 @@
     drawHistogram();
     state.focus = -1;
     if (previousX !== null) {
-      const i = P.indexOfCode(previousX);
+      const i = P.indexOfCode(P.codeOf(previousX));
       if (i >= 0) P.setFocus(i, true);
       else P.clearFocus();
     } else P.clearFocus();

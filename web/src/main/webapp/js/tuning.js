@@ -173,8 +173,11 @@
     $("opt-status").dataset.engine = (A.bridge() && A.bridge().engine) || "";
     if (answer.fallback) $("opt-status").textContent += " Note: " + answer.fallback + ".";
     setNumber("opt-before-bound", before ? before.complexity : r.initialComplexity);
-    setNumber("opt-before-wplus", before && before.positive ? before.positive.maxResistance : null);
-    setNumber("opt-before-wminus", before && before.negative ? before.negative.maxCapacitance : null);
+    // the engine's analysis: enumerated (positive.maxResistance) or by structure (maxResistance.value)
+    setNumber("opt-before-wplus", before && before.positive ? before.positive.maxResistance
+      : before && before.maxResistance && before.maxResistance.worst ? before.maxResistance.value : null);
+    setNumber("opt-before-wminus", before && before.negative ? before.negative.maxCapacitance
+      : before && before.maxCapacitance && before.maxCapacitance.worst ? before.maxCapacitance.value : null);
     setNumber("opt-after-bound", r.complexity);
     setNumber("opt-after-wplus", r.positive && r.positive.maxResistance);
     setNumber("opt-after-wminus", r.negative && r.negative.maxCapacitance);

@@ -15,14 +15,22 @@
  *   (functions: the exported engine functions this build has; the page hides what is missing)
  *   {type:"reply", id, text}
  *   {type:"progress", id, processed, total}
- *   {type:"analysis", id, text, inputs, ms, total} | {type:"analysis-error", id, text} | {type:"cancelled", id}
+ *   {type:"analysis", id, text, inputs, ms, total, method, methodReason} | {type:"analysis-error", id, text} |
+ *   {type:"cancelled", id}
+ *   {type:"structure", id, total, methodReason}   the engine chose its structural method (startAnalysis said so):
+ *                                                 nothing to step, so the bridge runs analyze in a task worker
+ *
+ * Beyond enumeration the analysis is one engine call (JsonFacade.analyze with the structural engine),
+ * so EngineBridge runs it in an EngineTask of its own: the main worker keeps answering (focus, edits),
+ * the page shows the elapsed time, and Cancel terminates that task worker (a fresh one starts on the
+ * next such analysis). The answer reaches onDone as {type:"analysis", method:"structure", inputs:null}.
  */
 (function () {
   "use strict";
 
   const EXPORTED = ["validate", "analyze", "startAnalysis", "stepAnalysis", "finishAnalysis",
     "cancelAnalysis", "detail", "encodeShare", "decodeShare", "renameVariable", "optimize", "optimizeStart", "optimizeStep", "optimizeFinish", "optimizeStop", "optimizeCancel", "build", "importGraph",
-    "bounds", "simulate", "sweepFamilies", "sweepStart", "sweepStep", "sweepFinish", "sweepCancel", "sweepReport"];
+    "bounds", "simulate", "sweepFamilies", "sweepStart", "sweepStep", "sweepFinish", "sweepCancel", "sweepReport", "tikz"];
 
   /* Runs inside the worker. Written as a function so that its text can go into the Blob. */
   function workerMain(exported) {
@@ -100,10 +108,15 @@
         return;
       }
       if (!started.ok) { post({ type: "analysis-error", id: msg.id, text: JSON.stringify(started) }); return; }
+      if (started.method === "structure") {
+        post({ type: "structure", id: msg.id, total: started.domainSize, methodReason: started.methodReason });
+        return;
+      }
       const job = { id: msg.id, job: started.job, cancelled: false, t0: t0, chunk: 1024,
         // rows are listed up to the engine's limit (maxListedInputs, 2^20; docs/scenario-format.md)
         withInputs: msg.withInputs !== false && !(started.maxListedInputs >= 0 && started.domainSize > started.maxListedInputs),
-        total: started.domainSize, scenario: msg.scenario, stepped: false, retried: false };
+        total: started.domainSize, scenario: msg.scenario, stepped: false, retried: false,
+        method: started.method || "enumerate", methodReason: started.methodReason || "" };
       running = job;
       // Small domains are finished in one call; large ones are stepped with progress reports.
       if (job.total <= 4096) { finish(job); return; }
@@ -166,6 +179,7 @@
       }
       if (parsed.result) delete parsed.result.inputs;
       post({ type: "analysis", id: job.id, text: JSON.stringify(parsed), ms: ms, total: job.total, retried: job.retried,
+        method: job.method, methodReason: job.methodReason,
         inputs: { codes: codes, values: values, flags: flags } }, [codes.buffer, values.buffer, flags.buffer]);
     }
 
@@ -228,10 +242,28 @@
       const job = self_.jobs.get(m.id);
       if (!job) return;
       if (m.type === "progress") job.onProgress(m.processed, m.total);
+      else if (m.type === "structure") self_.runStructure(m, job);
       else { self_.jobs.delete(m.id); job.onDone(m); }
     };
     worker.postMessage({ type: "init", engine: preferred });
   }
+  /** The structural analysis of one job, in this bridge's structure task (see the file comment):
+   *  onProgress(-1, total, {structure: true, methodReason, started}) once, then onDone. */
+  EngineBridge.prototype.runStructure = function (m, job) {
+    const self_ = this;
+    if (!this.structureTask) this.structureTask = new EngineTask(this.engine || "auto");
+    const task = this.structureTask;
+    const t0 = performance.now();
+    job.structure = true;
+    job.onProgress(-1, m.total, { structure: true, methodReason: m.methodReason, started: t0 });
+    task.run("analyze", job.scenario, false).then(function (v) {
+      if (self_.jobs.get(m.id) !== job || (v && v.cancelled)) return;   // cancelled or replaced
+      self_.jobs.delete(m.id);
+      const ok = v && v.ok;
+      job.onDone({ type: ok ? "analysis" : "analysis-error", id: m.id, text: JSON.stringify(v), ms: performance.now() - t0,
+        total: m.total, method: "structure", methodReason: m.methodReason, inputs: null, fallback: v && v.fallback });
+    });
+  };
   EngineBridge.prototype.call = function (fn) {
     const args = Array.prototype.slice.call(arguments, 1);
     const id = this.nextId++;
@@ -247,7 +279,7 @@
   };
   EngineBridge.prototype.analyze = function (scenarioText, onProgress, onDone) {
     const id = this.nextId++;
-    this.jobs.set(id, { onProgress: onProgress, onDone: onDone });
+    this.jobs.set(id, { onProgress: onProgress, onDone: onDone, scenario: scenarioText });
     this.worker.postMessage({ type: "analyze", id: id, scenario: scenarioText, withInputs: true });
     return id;
   };
@@ -258,9 +290,14 @@
     const job = this.jobs.get(id);
     if (!job) return;
     this.jobs.delete(id);
+    // a structural analysis is one engine call: end it by ending its worker
+    if (job.structure && this.structureTask && this.structureTask.busy) this.structureTask.cancel();
     job.onDone({ type: "cancelled", id: id });
   };
-  EngineBridge.prototype.terminate = function () { this.worker.terminate(); };
+  EngineBridge.prototype.terminate = function () {
+    this.worker.terminate();
+    if (this.structureTask) this.structureTask.cancel();
+  };
   EngineBridge.prototype.has = function (fn) { return this.functions.indexOf(fn) >= 0; };
 
   /**
