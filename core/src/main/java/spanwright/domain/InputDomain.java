@@ -39,9 +39,10 @@ public final class InputDomain {
         Promise p = scenario.promise();
         if (p.kind() != Promise.Kind.INPUTS && n > MAX_FILTERED_VARIABLES) {
             // scenarios built in code can exceed the reader's limit; the cube cannot be listed
-            throw new ScenarioException("too-many-variables", "$.variables", n + " variables: the domain of "
-                    + (p.kind() == Promise.Kind.NONE ? "all inputs" : "this promise") + " cannot be enumerated "
-                    + "(at most " + MAX_FILTERED_VARIABLES + " variables; list the inputs explicitly instead)");
+            throw new ScenarioException("too-many-variables", "$.variables", n + " variables: the 2^" + n + " inputs of "
+                    + (p.kind() == Promise.Kind.NONE ? "the whole cube" : "this promise") + " cannot be listed one by one (at most "
+                    + MAX_FILTERED_VARIABLES + " variables); W+, W- and the worst inputs of such a scenario come from the"
+                    + " structural analysis (analyze), or list the inputs of interest in \"promise\": {\"inputs\": [...]}");
         }
         switch (p.kind()) {
             case NONE:

@@ -54,8 +54,11 @@ import spanwright.model.Vertex;
  * {@code Random} ignores its seed (checked in TeaVM's class library source), so the page would
  * build a different graph than the command line for the same seed.
  *
- * <p>Every family is refused with its edge count when it has more edges than the enumeration
- * limit of variables. Cost: O(|E| + |V|) plus the path enumeration (capped).
+ * <p>A family is refused with its edge count when it has more edges than a scenario may have
+ * variables ({@link spanwright.io.ScenarioReader#MAX_VARIABLES}): graphs beyond enumeration (an 8×8
+ * grid, K₁₆) are built and then analysed by structure. Only with the promise "at most k edges
+ * missing", which is enumerated, the limit is {@link spanwright.io.ScenarioReader#MAX_ENUMERATED_VARIABLES}.
+ * Cost: O(|E| + |V|) plus the path enumeration (capped).
  * Stats: {@code family}, {@code size}, {@code s}, {@code t}, {@code paths} (number of simple s–t
  * paths, or null beyond the cap), {@code promise}.
  */
