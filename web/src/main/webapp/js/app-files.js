@@ -301,6 +301,7 @@
     const lines = ["# Spanwright inputs: " + oneLine(sc.title || "Untitled scenario"),
       "# normalisation: weight = resistance, each edge counted once (present edge: resistor w; absent edge: capacitor 1/w)",
       "# " + boundText()];
+    if (a.xs) lines.push("# rows: the structural engine's candidates (worst path, worst bond), not every input of the 2^" + a.nvars + " in the domain");
     lines.push("# weights (resistance), one edge a line: id, ends, present when, weight");
     sc.graph.edges.forEach(function (e) {
       lines.push("# edge " + oneLine(e.id) + ", " + oneLine(e.u) + " - " + oneLine(e.v) + ", " + oneLine(e.when) + ", " + String(e.weight === undefined || e.weight === null ? 1 : e.weight));

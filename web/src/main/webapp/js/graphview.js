@@ -165,10 +165,12 @@
       hard.push(n.boundingBox(BODY_BOX));
       if (n.data("label")) { const b = n.boundingBox(NODE_LABEL_BOX); if (b.w > 0 && b.h > 0) soft0.push(b); }
     });
-    const place = function (level) {
+    // quick: a level that will be given up (any crowded label) stops at its first crowded label
+    const place = function (level, quick) {
       const soft = soft0.slice();
       let crowded = 0;
       edges.forEach(function (e) {
+        if (quick && crowded) return;
         const label = level === "full" ? String(e.data("label") || "") : level === "literal" ? String(e.data("lit") || "") : "";
         if (!label) { e.data({ shown: "", fs: full, mx: 0, my: 0 }); return; }
         const parts = label.split(" · ");
@@ -209,7 +211,7 @@
     let level = levels[0], crowded = 0;
     for (let i = 0; i < levels.length; i++) {
       level = levels[i];
-      crowded = place(level);
+      crowded = place(level, i < levels.length - 1);
       if (crowded === 0) break;
     }
     this.labelLevel = level;
