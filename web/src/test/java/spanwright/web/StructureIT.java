@@ -202,6 +202,72 @@ class StructureIT {
         assertEquals(11L, page.js("return window.SpanwrightView.cy.edges('.flow').length;"), "a Hamiltonian path: 11 edges carry the current");
     }
 
+    /** Builds a host family in the New from… dialog and opens it; returns the JVM's build of the same request. */
+    private static String buildInDialog(String family, String a, String b) {
+        page.$("new-from").click();
+        page.waitFor("dialog open", WAIT, () -> page.$("builder").isDisplayed());
+        page.driver.findElement(By.cssSelector("input[name=bkind][value=host]")).click();
+        page.waitFor("host kind", WAIT, () -> "host".equals(page.$("builder").getAttribute("data-kind")));
+        new Select(page.$("b-family")).selectByValue(family);
+        page.js("var v = [arguments[0], arguments[1]]; ['b-size1', 'b-size2'].forEach(function (id, i) { var e = document.getElementById(id);"
+                + " e.value = v[i]; e.dispatchEvent(new Event('input')); e.dispatchEvent(new Event('change')); });", a, b == null ? "" : b);
+        String size = b == null ? "[" + a + "]" : "[" + a + "," + b + "]";
+        page.waitFor(family + " " + size + " previewed", WAIT, () -> String.valueOf(page.$("builder").getAttribute("data-request")).contains(size)
+                && "built".equals(page.$("builder").getAttribute("data-preview")));
+        page.waitFor("preview figures", WAIT, () -> "ready".equals(page.$("builder").getAttribute("data-preview-figures")));
+        Map<String, Object> built = map(Json.parse(JsonFacade.build(page.$("builder").getAttribute("data-request"))));
+        return Json.write(built.get("scenario"));
+    }
+
+    /** The builder's limits are the structural engine's: an 8×8 grid (112 edges) and K16 (120) are
+     *  built, previewed and analysed in the page, drawn where the engine placed them (grid rows and
+     *  columns, a circle). Source of the numbers: StructuralAnalysis.run on the JVM. */
+    @Test
+    @SuppressWarnings("unchecked")
+    void largeHostsFromTheBuilder() throws IOException {
+        for (String[] f : new String[][] {{"grid", "8", "8"}, {"complete", "16", null}}) {
+            String builtText = buildInDialog(f[0], f[1], f[2]);
+            StructuralAnalysis.Result expected = StructuralAnalysis.run(ScenarioReader.read(builtText));
+            assertClose(expected.positive().value(), page.value("builder-wplus"), f[0] + " preview W+");
+            assertClose(expected.negative().value(), page.value("builder-wminus"), f[0] + " preview W-");
+            int serial = page.serial();
+            long t0 = System.nanoTime();
+            page.$("builder-create").click();
+            page.waitForAnalysis(serial, WAIT);
+            long wall = (System.nanoTime() - t0) / 1_000_000;
+            assertEquals("ready", page.js("return document.body.dataset.analysis;"), page.$("error-box").getText());
+            assertEquals(Json.parse(builtText), Json.parse(scenarioText()), "the page opened the engine's scenario");
+            StructuralAnalysis.Result jvm = assertSummaryMatchesTheJvm(f[0] + " " + f[1]);
+            assertCandidates(jvm, f[0] + " " + f[1]);
+            record("engine=" + page.data("engine-badge", "engine") + " " + f[0] + " " + f[1] + (f[2] == null ? "" : "x" + f[2])
+                    + " analysed by structure in the page: " + Math.round(Double.parseDouble(page.data("timing", "ms"))) + " ms in the task worker, "
+                    + wall + " ms from 'Open as new scenario' to the finished summary");
+            // the drawing keeps the engine's positions
+            Object moved = page.js("var sc = JSON.parse(window.Spanwright.scenarioText()), cy = window.SpanwrightView.cy, out = [];"
+                    + " sc.graph.vertices.forEach(function (v) { var p = cy.getElementById(v.id).position();"
+                    + "   if (Math.abs(p.x - v.x) > 1e-6 || Math.abs(p.y - v.y) > 1e-6) out.push(v.id); }); return out.join(' ');");
+            assertEquals("", moved, "vertices drawn where the engine placed them");
+            List<Object> vertices = (List<Object>) map(map(Json.parse(builtText)).get("graph")).get("vertices");
+            if (f[0].equals("grid")) {
+                // r2c3 sits one row down and two columns right of r1c1 (the builder's 100-unit grid)
+                Map<String, Object> v = map(vertices.get(8 + 2));
+                assertEquals("r2c3", v.get("id"));
+                assertEquals(200.0, ((Number) v.get("x")).doubleValue() - ((Number) map(vertices.get(0)).get("x")).doubleValue(), 1e-9);
+                assertEquals(100.0, ((Number) v.get("y")).doubleValue() - ((Number) map(vertices.get(0)).get("y")).doubleValue(), 1e-9);
+            } else {
+                double r0 = Math.hypot(((Number) map(vertices.get(0)).get("x")).doubleValue(), ((Number) map(vertices.get(0)).get("y")).doubleValue());
+                for (Object o : vertices) {
+                    assertEquals(r0, Math.hypot(((Number) map(o).get("x")).doubleValue(), ((Number) map(o).get("y")).doubleValue()), 1e-6,
+                            "K16 on a circle");
+                }
+            }
+            assertEquals("0", page.js("return document.getElementById('graph').dataset.crowdedLabels;"), "no crowded labels");
+        }
+        // derived: K16, unit weights: W+ = 15 (Hamiltonian path), W- = ⌊16²/4⌋ = 64 (balanced cut)
+        assertEquals(15.0, page.value("sum-wplus"), 1e-9);
+        assertEquals(64.0, page.value("sum-wminus"), 1e-9);
+    }
+
     /** A 60-edge grid opened as a file (validate must accept it), analysed, drawn readably at
      *  1280×720 in both modes, then optimised in the Weights sheet on the structural path. */
     @Test
