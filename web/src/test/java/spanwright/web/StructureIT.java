@@ -349,6 +349,45 @@ class StructureIT {
         }
     }
 
+    /** A function the graph does not decide, beyond enumeration: the verdict gives the engine's count
+     *  and first counterexamples; one clicked is listed and focused with the JVM's witness. */
+    @Test
+    @SuppressWarnings("unchecked")
+    void aWrongReductionListsItsCounterexamplesOnDemand() throws IOException {
+        Map<String, Object> doc = map(map(Json.parse(JsonFacade.build("{\"kind\":\"host\",\"family\":\"grid\",\"size\":[5,5]}"))).get("scenario"));
+        doc.put("function", "r1c1_r1c2 | r1c1_r2c1");   // s has an edge: necessary for s ~ t, not sufficient
+        String text = Json.write(doc);
+        Path file = Files.createTempFile("grid5x5-wrong-", ".json");
+        Files.writeString(file, text, StandardCharsets.UTF_8);
+        try {
+            int serial = page.serial();
+            page.$("open-file").sendKeys(file.toString());
+            page.waitForAnalysis(serial, WAIT);
+            assertSummaryMatchesTheJvm("5x5 grid, wrong f");
+            Map<String, Object> red = map(jvmAnalysis(text).get("reduction"));
+            assertEquals("fails", red.get("status"));
+            WebElement verdict = page.$("verdict");
+            assertEquals("no", verdict.getAttribute("data-correct"));
+            String count = String.format("%,d", new java.math.BigInteger((String) red.get("counterexamples")));
+            assertTrue(verdict.getText().contains(count + " counterexamples"), verdict.getText() + " / " + count);
+            assertTrue(verdict.getText().contains("not a bound for f"), verdict.getText());
+            String first = (String) ((List<Object>) red.get("first")).get(0);
+            page.js("document.body.dataset.focusDrawn = '';");
+            verdict.findElement(By.cssSelector("button.linkish")).click();
+            page.waitFor("counterexample drawn", WAIT, () -> first.equals(page.js("return document.body.dataset.focusDrawn || '';")));
+            page.waitFor("counterexample valued", WAIT, () -> !Double.isNaN(page.value("focus-value")));
+            WebElement row = page.driver.findElement(By.cssSelector("#candidates .cand[data-x='" + first + "']"));
+            assertEquals("other", row.getAttribute("data-kind"));
+            assertTrue(row.getText().startsWith("counterexample"), row.getText());
+            assertTrue(row.getAttribute("class").contains("bad"), "marked as a counterexample");
+            // source: JsonFacade.detail on the JVM for the same input
+            Map<String, Object> d = map(Json.parse(JsonFacade.detail(text, first)));
+            assertClose(((Number) d.get("value")).doubleValue(), page.value("focus-value"), "counterexample's witness size");
+        } finally {
+            Files.deleteIfExists(file);
+        }
+    }
+
     /** A structural analysis that runs long (branch and bound: a shared variable makes the grid more
      *  than a host graph) shows its elapsed time and is cancelled; the next analysis runs. */
     @Test
