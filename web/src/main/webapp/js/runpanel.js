@@ -36,7 +36,7 @@
   function skeleton() {
     const body = $("run-body");
     body.textContent = "";
-    body.appendChild(el("p", "sheet-intro", "The span-program algorithm simulated exactly (phase estimation on U(x), no sampling) for every input, and in detail for the input in focus."));
+    body.appendChild(el("p", "sheet-intro", "The span-program algorithm simulated exactly (phase estimation on U(x), no sampling) for every input, and in detail for the input in focus. Beyond the engine's whole-domain limit, the input in focus alone."));
     const ctl = el("div", "opt-controls controls");
     ctl.appendChild(field("error ε", "run-epsilon", "0.1", "The largest accepted probability of error on a negative input"));
     ctl.appendChild(field("α² (empty: W₊)", "run-alpha2", "", "Scale of the start vector; empty uses the engine's default"));
@@ -120,7 +120,8 @@
     }
     const c = r.curves || {};
     const bits = c.bits || [];
-    const series = [
+    // A one-input run (scope "input") has no domain-wide curves: only the input in focus is drawn.
+    const series = r.scope === "input" ? [] : [
       { label: "worst positive", points: bits.map(function (b, i) { return [b, c.minPositive ? c.minPositive[i] : NaN]; }) },
       { label: "worst negative", points: bits.map(function (b, i) { return [b, c.maxNegative ? c.maxNegative[i] : NaN]; }) }
     ];
@@ -138,12 +139,16 @@
     setCost("run-qubits", r.qubits);
     const pos = r.positive || {}, neg = r.negative || {};
     const parts = [];
+    const one = r.scope === "input";
+    $("run-body").dataset.scope = r.scope || "domain";
+    if (one) parts.push("Only the input in focus is simulated: " + String(r.scopeReason || "the domain is too large") + ".");
     parts.push("α² = " + F.num(r.alpha2) + (r.alpha2Source ? " (" + r.alpha2Source + ")" : "") + ", ε = " + F.num(r.epsilon) + ".");
-    if (r.bits === null || r.bits === undefined) parts.push("No number of bits separates the inputs: " + (r.bitsReason || "no reason given") + ".");
-    else parts.push("With b = " + r.bits + ": worst positive input accepted with probability " + F.num(pos.minAcceptance) + ", worst negative with " + F.num(neg.maxAcceptance) + ".");
+    // The bits separate the whole domain's inputs: a one-input run has none to show.
+    if (!one && (r.bits === null || r.bits === undefined)) parts.push("No number of bits separates the inputs: " + (r.bitsReason || "no reason given") + ".");
+    else if (!one) parts.push("With b = " + r.bits + ": worst positive input accepted with probability " + F.num(pos.minAcceptance) + ", worst negative with " + F.num(neg.maxAcceptance) + ".");
     parts.push("Qubits: " + F.count(r.stateQubits) + " for the state + " + (r.phaseQubits === null || r.phaseQubits === undefined ? "–" : F.count(r.phaseQubits)) + " phase qubits.");
     if (r.repetitions) parts.push("For two-sided error ε: " + F.count(r.repetitions.runs) + " runs, " + (r.totalQueries === null ? "–" : F.count(r.totalQueries)) + " queries in all.");
-    else if (r.repetitionReason && r.repetitionReason !== r.bitsReason) parts.push(String(r.repetitionReason) + ".");
+    else if (!one && r.repetitionReason && r.repetitionReason !== r.bitsReason) parts.push(String(r.repetitionReason) + ".");
     if (r.textbook) parts.push("Textbook choice Θ = " + F.num(r.textbook.theta) + ": " + F.count(r.textbook.bits) + " bits, " + F.count(r.textbook.queries) + " queries.");
     if (st.fallback) parts.push("Note: " + st.fallback + ".");
     if (r.reductionCorrect === false) parts.push("⚠ The graph does not decide f: the simulated run decides s–t connectivity, not f.");

@@ -149,7 +149,12 @@ public final class StructuralAnalysis {
      * @throws ScenarioException {@code method} when the scenario has a promise (see {@link #refusal})
      */
     public static Result worstCases(Scenario sc, long maxStates, long maxNodes) {
-        return run(sc, maxStates, maxNodes, 0, DEFAULT_SECONDS, false);
+        return worstCases(sc, maxStates, maxNodes, DEFAULT_SECONDS);
+    }
+
+    /** As {@link #worstCases(Scenario, long, long)} with {@code seconds} for each branch-and-bound side. */
+    public static Result worstCases(Scenario sc, long maxStates, long maxNodes, double seconds) {
+        return run(sc, maxStates, maxNodes, 0, seconds, false);
     }
 
     private static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes, double seconds,

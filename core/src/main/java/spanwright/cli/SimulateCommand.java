@@ -31,7 +31,8 @@ final class SimulateCommand {
         return "  simulate [FILE] [--input 0110] [--epsilon 0.1] [--alpha2 A] [--inputs] [--json] | simulate --bench\n"
                 + "      Simulate the span-program algorithm exactly (spectrum of U(x), phase estimation) on every\n"
                 + "      input: the phase bits and queries for error epsilon, qubits; --input shows one input's\n"
-                + "      spectrum; --inputs adds every input's row; --bench times a 60-edge, 1024-input run.\n";
+                + "      spectrum, and beyond 65536 inputs simulates that input alone (at any domain size);\n"
+                + "      --inputs adds every input's row; --bench times a 60-edge, 1024-input run.\n";
     }
 
     static int run(List<String> args, PrintStream out, PrintStream err) {
@@ -91,7 +92,8 @@ final class SimulateCommand {
         }
         if (input != null) {
             try {
-                opt = opt.withFocus(SimulationJson.focus(input, sc, "--input"));
+                opt = sc.variableCount() <= 63 ? opt.withFocus(SimulationJson.focus(input, sc, "--input"))
+                        : opt.withFocusBits(SimulationJson.bits(input, sc, "--input"));
             } catch (ScenarioException e) {
                 throw new Main.UsageException("simulate: --input: " + e.getMessage());
             }
@@ -156,17 +158,24 @@ final class SimulateCommand {
         int n = sc.variableCount();
         StringBuilder sb = new StringBuilder();
         sb.append(sc.title().isEmpty() ? "(untitled scenario)" : sc.title()).append('\n');
+        boolean one = SimulationResult.INPUT.equals(r.scope);
         sb.append(line("model", "span-program algorithm for st-connectivity, simulated exactly: " + r.edges
-                + " edges, " + r.inputs().size() + " inputs"));
+                + " edges, " + (one ? "the input " + r.focus().input + " alone" : r.inputs().size() + " inputs")));
+        if (one) {
+            sb.append(line("scope", "one input: " + r.scopeReason));
+        }
         if (Boolean.FALSE.equals(r.reductionCorrect)) {
             sb.append(line("", "note: the graph does not decide the scenario's function; positive = s~t connected"));
         }
         String source = "W+".equals(r.alpha2Source) ? "= W+" : r.alpha2Source;
-        sb.append(line("alpha^2", num(r.alpha2) + " (" + source + ");  W+ = " + num(r.maxResistance)
-                + ", W- = " + num(r.maxCapacitance) + ", sqrt(W+ W-) = " + num(r.complexity())));
+        sb.append(line("alpha^2", num(r.alpha2) + " (" + source + ")" + (one && Double.isNaN(r.maxResistance)
+                && Double.isNaN(r.maxCapacitance) ? "" : ";  W+ = " + num(r.maxResistance) + ", W- = "
+                + num(r.maxCapacitance) + ", sqrt(W+ W-) = " + num(r.complexity()))));
         sb.append(line("error", "epsilon = " + num(r.epsilon)
                 + " (the largest probability of accepting a negative input in one run)"));
-        if (r.bits == 0) {
+        if (one) {
+            sb.append(line("qubits", r.stateQubits + " for the state (ceil log2(|E|+1)) + the phase bits b"));
+        } else if (r.bits == 0) {
             sb.append(line("bits", "none: " + r.bitsReason));
         } else {
             int b = r.bits;
@@ -189,8 +198,8 @@ final class SimulateCommand {
                     + ", positives >= " + num(t.minPositiveAcceptance)));
         }
         sb.append(line("checks", "|U^T U - I| <= " + NumberText.sig(r.orthogonalityDefect, 2)
-                + "; effective spectral gap lemma on negative inputs: worst ratio "
-                + (Double.isNaN(r.lemmaWorstRatio) ? "—" : num(r.lemmaWorstRatio)) + " (at most 1)"));
+                + (one ? "" : "; effective spectral gap lemma on negative inputs: worst ratio "
+                + (Double.isNaN(r.lemmaWorstRatio) ? "—" : num(r.lemmaWorstRatio)) + " (at most 1)")));
         sb.append(line("time", millis + " ms"));
         sb.append("  assumptions:\n");
         for (String a : Simulation.ASSUMPTIONS) {
@@ -201,7 +210,9 @@ final class SimulateCommand {
         if (r.focus() != null) {
             sb.append(focus(r, r.focus()));
         }
-        if (rows) {
+        if (rows && one) {
+            sb.append("\n  (--inputs: no rows; only the input in focus was simulated)\n");
+        } else if (rows) {
             sb.append('\n').append("  ").append(Main.pad("input", Math.max(6, n + 2))).append("s~t  ")
                     .append(Main.pad("R or C", 12)).append(Main.pad("phase-0 wt", 12)).append(Main.pad("phase gap", 11))
                     .append(r.bits == 0 ? "" : "accept@" + r.bits).append('\n');

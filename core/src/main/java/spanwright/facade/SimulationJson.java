@@ -55,7 +55,9 @@ public final class SimulationJson {
                     if (v == Json.NULL) {
                         break;
                     }
-                    opt = opt.withFocus(focus(ScenarioReader.string(v, path), scenario, path));
+                    String text = ScenarioReader.string(v, path);
+                    opt = scenario.variableCount() <= 63 ? opt.withFocus(focus(text, scenario, path))
+                            : opt.withFocusBits(bits(text, scenario, path));
                     break;
                 default:
                     throw ScenarioReader.unknownOption(e.getKey(), "epsilon, alpha2, input");
@@ -114,6 +116,8 @@ public final class SimulationJson {
         int n = sc.variableCount();
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("title", sc.title());
+        m.put("scope", r.scope);
+        m.put("scopeReason", r.scopeReason == null ? Json.NULL : r.scopeReason);
         m.put("alpha2", r.alpha2);
         m.put("alpha2Source", r.alpha2Source);
         m.put("epsilon", r.epsilon);
@@ -136,17 +140,17 @@ public final class SimulationJson {
         m.put("repetitionReason", r.repetitionReason == null ? Json.NULL : r.repetitionReason);
         m.put("totalQueries", r.totalQueries < 0 ? Json.NULL : (Object) r.totalQueries);
         m.put("edges", r.edges);
-        m.put("domainSize", r.inputs().size());
+        m.put("domainSize", r.domainSize < 0 ? Json.NULL : (Object) r.domainSize);
         m.put("reductionCorrect", r.reductionCorrect == null ? Json.NULL : r.reductionCorrect);
 
         Map<String, Object> pos = new LinkedHashMap<>();
-        pos.put("count", r.positiveCount);
+        pos.put("count", r.positiveCount < 0 ? Json.NULL : (Object) r.positiveCount);
         pos.put("maxResistance", ResultJson.num(r.maxResistance));
         pos.put("minAcceptance", r.bits == 0 ? Json.NULL : ResultJson.num(r.minPositiveAcceptance()[r.bits - 1]));
         pos.put("worst", r.worstPositive < 0 ? Json.NULL : Inputs.format(r.worstPositive, n));
         m.put("positive", pos);
         Map<String, Object> neg = new LinkedHashMap<>();
-        neg.put("count", r.negativeCount);
+        neg.put("count", r.negativeCount < 0 ? Json.NULL : (Object) r.negativeCount);
         neg.put("maxCapacitance", ResultJson.num(r.maxCapacitance));
         neg.put("maxAcceptance", r.bits == 0 ? Json.NULL : ResultJson.num(r.maxNegativeAcceptance()[r.bits - 1]));
         neg.put("worst", r.worstNegative < 0 ? Json.NULL : Inputs.format(r.worstNegative, n));

@@ -1,7 +1,5 @@
 package spanwright.quantum;
 
-import spanwright.model.Inputs;
-
 /**
  * The simulated span-program algorithm on one input x: the spectrum of U(x) as seen from the
  * initial state |0⟩, the acceptance probabilities of phase estimation, and the certificate behind
@@ -21,7 +19,7 @@ import spanwright.model.Inputs;
  * it lies in ker Ã and vanishes on absent edges (derived in docs/simulation.md).
  */
 public final class InputSimulation {
-    /** The input, as a mask (first variable = most significant bit). */
+    /** The input, as a mask (first variable = most significant bit); −1 beyond 63 variables. */
     public final long mask;
     /** The input string. */
     public final String input;
@@ -50,12 +48,12 @@ public final class InputSimulation {
     private final double[] spectrumPhases;
     private final double[] spectrumWeights;
 
-    InputSimulation(long mask, int variableCount, boolean inDomain, boolean positive, double witnessSize,
+    InputSimulation(long mask, String input, boolean inDomain, boolean positive, double witnessSize,
             double phaseZeroWeight, double phaseGap, double weightedPhaseGap, boolean converged,
             double[] measurePhases, double[] measureWeights, double[] acceptanceByBits, double[] phaseZeroVector,
             double[] spectrumPhases, double[] spectrumWeights) {
         this.mask = mask;
-        this.input = Inputs.format(mask, variableCount);
+        this.input = input;
         this.inDomain = inDomain;
         this.positive = positive;
         this.witnessSize = witnessSize;

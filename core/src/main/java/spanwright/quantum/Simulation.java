@@ -7,6 +7,7 @@ import spanwright.analysis.AnalysisResult;
 import spanwright.domain.InputDomain;
 import spanwright.electric.Witness;
 import spanwright.model.ScenarioException;
+import spanwright.model.Promise;
 import spanwright.model.Scenario;
 
 /**
@@ -43,6 +44,8 @@ public final class Simulation {
      * times that in the page.
      */
     public static final double MAX_WORK = 4.0e9;
+    /** Time per side for the structural W₊ that scales a one-input simulation (α² not given). */
+    public static final double ALPHA_SECONDS = 5;
 
     /** The cost model behind every count (also printed and put in the JSON). */
     public static final List<String> ASSUMPTIONS = List.of(
@@ -60,30 +63,40 @@ public final class Simulation {
 
     private Simulation() {}
 
+    /** Progress of a simulation: inputs simulated so far out of all to simulate. */
+    public interface Listener {
+        /** Called after each simulated input (and once before the first, with done = 0). */
+        void progress(long done, long total);
+    }
+
     /**
-     * Simulates the algorithm on every input of the domain.
+     * Simulates the algorithm on every input of the domain; or, when an input is in focus and the
+     * domain is beyond the whole-domain limits ({@link #MAX_INPUTS}, {@link #MAX_WORK}), on that
+     * input alone (scope {@link SimulationResult#INPUT}, see {@link #runInput}).
      *
      * @throws ScenarioException {@code too-large-to-simulate} beyond the size guard; {@code option}
      *         for ε outside (0, 1) or α² not finite and &gt; 0
      */
     public static SimulationResult run(Scenario scenario, SimulationOptions options) {
-        double epsilon = options.epsilon();
-        if (!(epsilon > 0 && epsilon < 1)) {
-            throw new ScenarioException("option", "$options.epsilon",
-                    "epsilon must be a number strictly between 0 and 1, got " + epsilon);
-        }
-        if (!Double.isNaN(options.alpha2()) && (!(options.alpha2() > 0) || Double.isInfinite(options.alpha2()))) {
-            throw new ScenarioException("option", "$options.alpha2",
-                    "alpha2 must be a finite number > 0, got " + options.alpha2());
-        }
-        int m = 0;
-        for (int i = 0; i < scenario.edges().size(); i++) {
-            if (!scenario.edges().get(i).isSelfLoop()) {
-                m++;
-            }
-        }
-        checkSize(scenario, m);
+        return run(scenario, options, null);
+    }
 
+    /** As {@link #run(Scenario, SimulationOptions)}, reporting progress to {@code listener} (may be null). */
+    public static SimulationResult run(Scenario scenario, SimulationOptions options, Listener listener) {
+        checkOptions(options);
+        double epsilon = options.epsilon();
+        int m = edgeCount(scenario);
+        checkEdges(m, options.hasFocus());
+        String refusal = wholeDomainRefusal(scenario, m, !options.hasFocus());
+        if (refusal != null) {
+            if (options.hasFocus()) {
+                return runInput(scenario, options, refusal + ": only the input in focus is simulated. Bits, queries"
+                        + " and repetitions for the whole domain need a smaller domain (restrict it with a promise)");
+            }
+            throw new ScenarioException("too-large-to-simulate", domainPath(scenario), refusal
+                    + "; restrict the domain with a promise, or simulate one input (put it in focus in the page;"
+                    + " simulate --input BITS on the command line), which works at any domain size");
+        }
         AnalysisResult analysis = Analysis.run(scenario);
         double wPlus = analysis.maxResistance();
         double wMinus = analysis.maxCapacitance();
@@ -111,7 +124,13 @@ public final class Simulation {
         java.util.Arrays.fill(maxNeg, Double.NEGATIVE_INFINITY);
         double negativeGap = Double.POSITIVE_INFINITY;
         double lemmaRatio = Double.NEGATIVE_INFINITY;
+        if (listener != null) {
+            listener.progress(0, size);
+        }
         for (int i = 0; i < size; i++) {
+            if (listener != null && i > 0) {
+                listener.progress(i, size);
+            }
             long mask = analysis.input(i);
             InputSimulation r = solver.solve(mask, Analysis.presentEdges(scenario, mask), true, analysis.connected(i),
                     analysis.value(i), false);
@@ -199,32 +218,192 @@ public final class Simulation {
                 bits == 0 ? -1 : stateQubits + bits, unitary.orthogonalityDefect(), textbook,
                 negatives == 0 || negativeGap == Double.POSITIVE_INFINITY ? Double.NaN : negativeGap,
                 negatives == 0 ? Double.NaN : lemmaRatio, worstPositive, worstNegative, edgeIndices(unitary),
-                minPos, maxNeg, rows, focus);
+                minPos, maxNeg, rows, focus, SimulationResult.DOMAIN, null, size);
+    }
+
+    private static void checkOptions(SimulationOptions options) {
+        double epsilon = options.epsilon();
+        if (!(epsilon > 0 && epsilon < 1)) {
+            throw new ScenarioException("option", "$options.epsilon",
+                    "epsilon must be a number strictly between 0 and 1, got " + epsilon);
+        }
+        if (!Double.isNaN(options.alpha2()) && (!(options.alpha2() > 0) || Double.isInfinite(options.alpha2()))) {
+            throw new ScenarioException("option", "$options.alpha2",
+                    "alpha2 must be a finite number > 0, got " + options.alpha2());
+        }
+    }
+
+    private static int edgeCount(Scenario scenario) {
+        int m = 0;
+        for (int i = 0; i < scenario.edges().size(); i++) {
+            if (!scenario.edges().get(i).isSelfLoop()) {
+                m++;
+            }
+        }
+        return m;
     }
 
     /**
-     * Refuses instances beyond the size guard, with a message that says what to change.
-     *
-     * @throws ScenarioException code {@code too-large-to-simulate}
+     * Refuses a graph beyond {@link #MAX_EDGES}, for one input as for the whole domain: the state
+     * register is small (⌈log₂(|E|+1)⌉ qubits) but its exact simulation is dense (|E|+1)² matrices.
      */
-    public static void checkSize(Scenario scenario, int edges) {
+    private static void checkEdges(int edges, boolean oneInput) {
         if (edges > MAX_EDGES) {
             throw new ScenarioException("too-large-to-simulate", "$.graph.edges", "the simulation handles at most "
-                    + MAX_EDGES + " edges (dense matrices of size (|E|+1)²); this scenario has " + edges);
+                    + MAX_EDGES + " edges" + (oneInput ? ", even for one input" : "") + ": the state register is only "
+                    + ceilLog2(edges + 1) + " qubits (ceil log2(|E|+1)), but simulating it exactly takes dense"
+                    + " (|E|+1)×(|E|+1) matrices and one decomposition of that size per input; this graph has " + edges
+                    + " edges. Try a smaller graph (fewer edges, e.g. a smaller size of the family), or look at the"
+                    + " input's witness without simulating (the Summary and analyze --input BITS work at this size)");
         }
-        long size = InputDomain.of(scenario).size();
-        String path = scenario.promise().kind() == spanwright.model.Promise.Kind.NONE ? "$.variables" : "$.promise";
+    }
+
+    private static String domainPath(Scenario scenario) {
+        return scenario.promise().kind() == Promise.Kind.NONE ? "$.variables" : "$.promise";
+    }
+
+    /**
+     * The domain's size when it is known without listing it (the whole cube, a listed promise,
+     * Hamming weights: a sum of binomial coefficients), saturating at {@link Long#MAX_VALUE}; −1 for
+     * an expression promise.
+     */
+    static long domainSizeWithoutListing(Scenario scenario) {
+        int n = scenario.variableCount();
+        Promise p = scenario.promise();
+        switch (p.kind()) {
+            case NONE:
+                return n >= 63 ? Long.MAX_VALUE : 1L << n;
+            case INPUTS:
+                return p.inputs().length;
+            case WEIGHTS: {
+                long total = 0;
+                for (int k : p.weights()) {
+                    long c = binomial(n, k);
+                    total = c == Long.MAX_VALUE || total > Long.MAX_VALUE - c ? Long.MAX_VALUE : total + c;
+                }
+                return total;
+            }
+            default:
+                return -1;
+        }
+    }
+
+    /** C(n, k), saturating at {@link Long#MAX_VALUE}. */
+    private static long binomial(int n, int k) {
+        if (k < 0 || k > n) {
+            return 0;
+        }
+        k = Math.min(k, n - k);
+        long c = 1;
+        for (int i = 1; i <= k; i++) {
+            // c · (n − k + i) / i stays whole; refuse before overflow
+            long f = n - k + i;
+            if (c > Long.MAX_VALUE / f) {
+                return Long.MAX_VALUE;
+            }
+            c = c * f / i;
+        }
+        return c;
+    }
+
+    /**
+     * Why the whole domain cannot be simulated ({@link #MAX_INPUTS}, {@link #MAX_WORK}), or null when
+     * it can. An expression promise's domain is counted by listing it only when {@code mayList} or
+     * when its cube is within {@link #MAX_INPUTS} (a one-input run never lists a large domain).
+     */
+    static String wholeDomainRefusal(Scenario scenario, int edges, boolean mayList) {
+        long size = domainSizeWithoutListing(scenario);
+        int n = scenario.variableCount();
+        if (size < 0) {
+            if (!mayList && n > 16) {
+                return "the promise's domain would have to be listed from 2^" + n + " inputs to be counted, and"
+                        + " the simulation of every input handles at most " + MAX_INPUTS + " inputs";
+            }
+            size = InputDomain.of(scenario).size();
+        }
         if (size > MAX_INPUTS) {
-            throw new ScenarioException("too-large-to-simulate", path, "the simulation handles at most " + MAX_INPUTS
-                    + " inputs; this domain has " + size + " (restrict it with a promise)");
+            return "the simulation of every input handles at most " + MAX_INPUTS + " inputs (one dense decomposition"
+                    + " each); this domain has " + (size == Long.MAX_VALUE ? "more than 2^62" : String.valueOf(size));
         }
         double d = edges + 1.0;
         double work = size * d * d * d;
         if (work > MAX_WORK) {
-            throw new ScenarioException("too-large-to-simulate", path, "too much work to simulate: " + size
-                    + " inputs × (" + edges + " edges + 1)³ = " + (long) work + " > " + (long) MAX_WORK
-                    + " (one dense decomposition per input); restrict the domain with a promise or use fewer edges");
+            return "too much work to simulate every input: " + size + " inputs × (" + edges + " edges + 1)³ = "
+                    + (long) work + " > " + (long) MAX_WORK + " (one dense decomposition per input; use fewer edges)";
         }
+        return null;
+    }
+
+    /**
+     * Simulates the focused input alone: its spectrum, phase-zero weight and acceptance for b = 1 …
+     * 16, without listing the domain. α² is the given one, or else W₊ of the domain from the
+     * structural analysis (the heaviest worst case, within {@link #ALPHA_SECONDS} per side; its
+     * certified lower end when the budget runs out) or, where structure cannot run, from the
+     * enumeration. Domain-wide fields are empty (bits 0 with {@code bitsReason} = the scope reason).
+     * Cost: that analysis (none when α² is given), O(|V|(|E|+1)²) once and one dense SVD.
+     */
+    static SimulationResult runInput(Scenario scenario, SimulationOptions options, String reason) {
+        int n = scenario.variableCount();
+        boolean[] x = options.focusBits();
+        long mask = options.focus();
+        if (x == null) {
+            x = new boolean[n];
+            for (int i = 0; i < n; i++) {
+                x[i] = spanwright.model.Inputs.bit(mask, i, n);
+            }
+        } else if (x.length != n) {
+            throw new ScenarioException("input-string", "$options.input", "the input has " + x.length
+                    + " values; this scenario has " + n + " variables");
+        } else if (n <= 63) {
+            mask = 0;
+            for (boolean b : x) {
+                mask = (mask << 1) | (b ? 1 : 0);
+            }
+        }
+        int m = edgeCount(scenario);
+        double alpha2 = options.alpha2();
+        String source = "given";
+        double wPlus = Double.NaN;
+        double wMinus = Double.NaN;
+        if (Double.isNaN(alpha2)) {
+            if (spanwright.analysis.StructuralAnalysis.refusal(scenario) == null) {
+                spanwright.analysis.StructuralAnalysis.Result r = spanwright.analysis.StructuralAnalysis.worstCases(
+                        scenario, spanwright.analysis.StructuralAnalysis.DEFAULT_STATES,
+                        spanwright.analysis.StructuralAnalysis.DEFAULT_NODES, ALPHA_SECONDS);
+                if (r.positive().worst() != null) {
+                    wPlus = r.positive().value();
+                }
+                if (r.negative().worst() != null) {
+                    wMinus = r.negative().value();
+                }
+                source = r.positive().exact() ? "W+ by structure"
+                        : "W+ at least, by structure (its search stopped at its time budget)";
+            } else {
+                AnalysisResult a = Analysis.run(scenario);
+                wPlus = a.positiveCount() > 0 ? a.maxResistance() : Double.NaN;
+                wMinus = a.negativeCount() > 0 ? a.maxCapacitance() : Double.NaN;
+                source = "W+";
+            }
+            if (wPlus > 0) {
+                alpha2 = wPlus;
+            } else {
+                alpha2 = 1;
+                source = "1 (no positive inputs)";
+            }
+        }
+        spanwright.analysis.InputDetail d = spanwright.analysis.StructuralAnalysis.detail(scenario, x);
+        boolean inDomain = n <= 63 ? scenario.promise().allows(mask) : scenario.promise().kind() == Promise.Kind.NONE;
+        SpanProgramUnitary unitary = new SpanProgramUnitary(scenario, alpha2);
+        SpectrumSolver solver = new SpectrumSolver(unitary);
+        InputSimulation focus = solver.solve(n <= 63 ? mask : -1, d.input, d.present, inDomain, d.witness.connected,
+                d.witness.value, true);
+        int nb = PhaseEstimation.MAX_BITS;
+        double[] none = new double[nb];
+        java.util.Arrays.fill(none, Double.NaN);
+        return new SimulationResult(scenario, alpha2, source, -1, -1, wPlus, wMinus, null, options.epsilon(), 0,
+                reason, -1, null, reason, -1, m, ceilLog2(m + 1), -1, unitary.orthogonalityDefect(), null, Double.NaN,
+                Double.NaN, -1, -1, edgeIndices(unitary), none, none, List.of(), focus, SimulationResult.INPUT, reason,
+                domainSizeWithoutListing(scenario) == Long.MAX_VALUE ? -1 : domainSizeWithoutListing(scenario));
     }
 
     private static InputSimulation focus(Scenario scenario, SpectrumSolver solver, long mask) {

@@ -5,7 +5,8 @@ import spanwright.model.Scenario;
 
 /**
  * The span-program algorithm simulated on every input of a scenario's domain, with its concrete
- * costs under the stated model ({@link Simulation#ASSUMPTIONS}). Immutable (arrays copied out).
+ * costs under the stated model ({@link Simulation#ASSUMPTIONS}), or on the focused input alone
+ * (see {@link #scope}). Immutable (arrays copied out).
  *
  * <p>One run: b-bit phase estimation of U(x) on |0⟩, accept when the estimate is 0. The error ε
  * is the false acceptance: b <em>separates at error ε</em> when every negative input is accepted
@@ -15,6 +16,11 @@ import spanwright.model.Scenario;
  * turns the one-run gap into two-sided error ε by repeating.
  */
 public final class SimulationResult {
+    /** {@link #scope} of a simulation of every input of the domain. */
+    public static final String DOMAIN = "domain";
+    /** {@link #scope} of a simulation of the focused input alone. */
+    public static final String INPUT = "input";
+
     /** The textbook choice of precision for comparison: Θ = 1/(2√(W₊W₋)). Immutable. */
     public static final class Textbook {
         /** Θ = 1/(2√(W₊W₋)). */
@@ -48,11 +54,23 @@ public final class SimulationResult {
     }
 
     public final Scenario scenario;
+    /**
+     * What was simulated: {@link #DOMAIN} (every input of the domain, with the costs) or
+     * {@link #INPUT} (only the focused input, when the domain is beyond the whole-domain limits;
+     * then the domain-wide fields are empty: bits 0, counts −1, no rows).
+     */
+    public final String scope;
+    /** Why only the focused input was simulated (the limit and what to try), or null. */
+    public final String scopeReason;
+    /** Inputs in the domain; −1 when it was not counted (a one-input run under an expression promise). */
+    public final long domainSize;
     /** α² used. */
     public final double alpha2;
     /** Where α² came from: "W+" (the default), "given", or "1 (no positive inputs)". */
     public final String alpha2Source;
+    /** Positive inputs in the domain; −1 when not counted (scope {@link #INPUT}). */
     public final long positiveCount;
+    /** Negative inputs in the domain; −1 when not counted (scope {@link #INPUT}). */
     public final long negativeCount;
     /** W₊ (NaN when there are no positive inputs). */
     public final double maxResistance;
@@ -107,8 +125,12 @@ public final class SimulationResult {
             Repetition repetition, String repetitionReason, long totalQueries, int edges, int stateQubits, int qubits,
             double orthogonalityDefect, Textbook textbook, double negativePhaseGap, double lemmaWorstRatio,
             long worstPositive, long worstNegative, int[] edgeIndex, double[] minPositiveAcceptance,
-            double[] maxNegativeAcceptance, List<InputSimulation> inputs, InputSimulation focus) {
+            double[] maxNegativeAcceptance, List<InputSimulation> inputs, InputSimulation focus, String scope,
+            String scopeReason, long domainSize) {
         this.scenario = scenario;
+        this.scope = scope;
+        this.scopeReason = scopeReason;
+        this.domainSize = domainSize;
         this.alpha2 = alpha2;
         this.alpha2Source = alpha2Source;
         this.positiveCount = positiveCount;

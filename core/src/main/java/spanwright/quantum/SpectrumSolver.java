@@ -70,6 +70,16 @@ public final class SpectrumSolver {
      */
     public InputSimulation solve(long mask, boolean[] present, boolean inDomain, boolean positive,
             double witnessSize, boolean keepSpectrum) {
+        return solve(mask, spanwright.model.Inputs.format(mask, variableCount), present, inDomain, positive,
+                witnessSize, keepSpectrum);
+    }
+
+    /**
+     * Simulates one input given also as its string (for inputs of more than 63 variables, whose
+     * {@code mask} is −1); otherwise as {@link #solve(long, boolean[], boolean, boolean, double, boolean)}.
+     */
+    public InputSimulation solve(long mask, String input, boolean[] present, boolean inDomain, boolean positive,
+            double witnessSize, boolean keepSpectrum) {
         double[] d = unitary.querySigns(present);
         double[] a = work.data;
         for (int i = 0; i < dim; i++) {
@@ -83,7 +93,7 @@ public final class SpectrumSolver {
             double nan = Double.NaN;
             double[] none = new double[PhaseEstimation.MAX_BITS];
             java.util.Arrays.fill(none, nan);
-            return new InputSimulation(mask, variableCount, inDomain, positive, witnessSize, nan, nan, nan, false,
+            return new InputSimulation(mask, input, inDomain, positive, witnessSize, nan, nan, nan, false,
                     new double[0], new double[0], none, new double[dim], null, null);
         }
         double[] sv = svd.getSingularValues();
@@ -139,7 +149,7 @@ public final class SpectrumSolver {
             }
         }
         double[] accept = PhaseEstimation.acceptanceByBits(phase, weight);
-        return new InputSimulation(mask, variableCount, inDomain, positive, witnessSize, zeroWeight, gap,
+        return new InputSimulation(mask, input, inDomain, positive, witnessSize, zeroWeight, gap,
                 weightedGap, true, mp, mw, accept, zeroVector, sp, sw);
     }
 

@@ -137,4 +137,55 @@ class SimulateCommandTest {
         assertEquals(Boolean.TRUE, ok.get("ok"));
         assertEquals(Json.NULL, ((Map<String, Object>) ok.get("result")).get("focus"));
     }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void oneInputOfTwentyVariablesIsSimulated(@TempDir Path dir) throws Exception {
+        // 20 variables (2^20 inputs, beyond the 65,536 of a whole-domain run): a chain of ten
+        // two-edge parallel links, edge pair i switched by a_i and b_i (unit weights).
+        StringBuilder vars = new StringBuilder();
+        StringBuilder verts = new StringBuilder("{\"id\":\"s\"}");
+        StringBuilder edges = new StringBuilder();
+        for (int i = 0; i < 10; i++) {
+            vars.append(i == 0 ? "" : ",").append("\"a").append(i).append("\",\"b").append(i).append('"');
+            String u = i == 0 ? "s" : "m" + i;
+            String v = i == 9 ? "t" : "m" + (i + 1);
+            if (i < 9) {
+                verts.append(",{\"id\":\"").append(v).append("\"}");
+            }
+            edges.append(i == 0 ? "" : ",").append("{\"id\":\"e").append(i).append("a\",\"u\":\"").append(u)
+                    .append("\",\"v\":\"").append(v).append("\",\"when\":\"a").append(i).append("\"},")
+                    .append("{\"id\":\"e").append(i).append("b\",\"u\":\"").append(u)
+                    .append("\",\"v\":\"").append(v).append("\",\"when\":\"b").append(i).append("\"}");
+        }
+        verts.append(",{\"id\":\"t\"}");
+        Path file = dir.resolve("chain20.json");
+        Files.writeString(file, "{\"format\":\"spanwright-scenario\",\"version\":1,\"title\":\"chain of ten links\","
+                + "\"variables\":[" + vars + "],\"graph\":{\"s\":\"s\",\"t\":\"t\",\"vertices\":[" + verts
+                + "],\"edges\":[" + edges + "]}}", StandardCharsets.UTF_8);
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        String x = "11".repeat(10); // every link doubled: R = 10 × 1/2 = 5 (series of parallel pairs, derived)
+        assertEquals(0, run(out, err, "simulate", file.toString(), "--input", x, "--json"), text(err));
+        Map<String, Object> m = (Map<String, Object>) Json.parse(text(out));
+        assertEquals("input", m.get("scope"));
+        Map<String, Object> focus = (Map<String, Object>) m.get("focus");
+        assertEquals(x, focus.get("x"));
+        assertEquals(5.0, (Double) focus.get("witnessSize"), 1e-12);
+        // W+ = 10 (one edge per link), α² = W+: weight α²/(α² + R) = 10/15 (derived, docs/simulation.md)
+        assertEquals(10.0, (Double) m.get("alpha2"), 1e-9);
+        assertEquals(10.0 / 15, (Double) focus.get("phaseZeroWeight"), 1e-9);
+        assertEquals(Json.NULL, m.get("bits"));
+        assertTrue(((List<Object>) m.get("inputs")).isEmpty());
+        // the page's entry gives the same object
+        Map<String, Object> page = (Map<String, Object>) Json.parse(JsonFacade.simulate(Files.readString(file),
+                "{\"input\":\"" + x + "\"}"));
+        assertEquals(focus.get("phaseZeroWeight"), ((Map<String, Object>) ((Map<String, Object>) page.get("result"))
+                .get("focus")).get("phaseZeroWeight"));
+        // text: says it is one input and why
+        out.reset();
+        assertEquals(0, run(out, err, "simulate", file.toString(), "--input", x));
+        assertTrue(text(out).contains("the input " + x + " alone") && text(out).contains("at most 65536 inputs"),
+                text(out));
+    }
 }

@@ -264,4 +264,85 @@ class SimulationTest {
             assertEquals(r.edges + 1, dummy.numRows);
         }
     }
+
+    @Test
+    void oneInputIsSimulatedAtAnyDomainSize() {
+        // OR_20 (20 parallel unit edges, 2^20 inputs > MAX_INPUTS): with an input in focus only that
+        // input is simulated. α² = W₊ = 1 (one edge present, R = 1; by structure). Derived closed forms
+        // (docs/simulation.md, "Why it works", after Belovs & Reichardt, arXiv:1203.2603):
+        // input with k ones: R = 1/k, phase-zero weight α²/(α² + R) = 1/(1 + 1/k);
+        // input 0…0: all of |0⟩'s weight on |θ| = 2 arctan(1/(α√n)).
+        Scenario or20 = QuantumNets.or(20, null);
+        long three = 0b111L << 5;
+        SimulationResult r = Simulation.run(or20, SimulationOptions.defaults().withFocus(three));
+        assertEquals(SimulationResult.INPUT, r.scope);
+        assertTrue(r.scopeReason.contains("at most " + Simulation.MAX_INPUTS + " inputs")
+                && r.scopeReason.contains("1048576"), r.scopeReason);
+        assertEquals(1.0, r.alpha2, 1e-12);
+        assertEquals("W+ by structure", r.alpha2Source);
+        assertEquals(1 << 20, r.domainSize);
+        assertEquals(0, r.bits);
+        assertEquals(-1, r.positiveCount);
+        assertTrue(r.inputs().isEmpty());
+        InputSimulation f = r.focus();
+        assertTrue(f.positive && f.inDomain);
+        assertEquals(1.0 / 3, f.witnessSize, 1e-12);
+        assertEquals(1 / (1 + 1.0 / 3), f.phaseZeroWeight, 1e-12);
+        assertEquals(21, f.spectrumPhases().length);
+
+        SimulationResult zero = Simulation.run(or20, SimulationOptions.defaults().withFocus(0));
+        double theta = 2 * Math.atan(1 / Math.sqrt(20));
+        double[] p = zero.focus().spectrumPhases();
+        double[] w = zero.focus().spectrumWeights();
+        double near = 0;
+        for (int k = 0; k < p.length; k++) {
+            if (Math.abs(p[k] - theta) < 1e-9) {
+                near += w[k];
+            }
+        }
+        assertEquals(1.0, near, 1e-9);
+        assertFalse(zero.focus().positive);
+
+        // The same input in a whole-domain run (a listed promise of three inputs, α² given alike)
+        // has the same U(x), hence the same acceptance curve (consistency of the two paths).
+        SimulationResult listed = Simulation.run(QuantumNets.or(20, Promise.inputs(new long[] {0, 1, three})),
+                SimulationOptions.defaults().withAlpha2(1).withFocus(three));
+        assertEquals(SimulationResult.DOMAIN, listed.scope);
+        for (int b = 1; b <= PhaseEstimation.MAX_BITS; b++) {
+            assertEquals(listed.focus().acceptance(b), f.acceptance(b), 1e-12, "b = " + b);
+        }
+
+        // Without an input in focus the refusal names the limit and the way out.
+        ScenarioException e = assertThrows(ScenarioException.class,
+                () -> Simulation.run(or20, SimulationOptions.defaults()));
+        assertTrue(e.getMessage().contains("simulate one input"), e.getMessage());
+    }
+
+    @Test
+    void oneInputNeverListsTheDomain() {
+        // 70 variables: no mask, and a cube no domain can list (InputDomain refuses beyond 30
+        // variables), so a result at all shows the domain was not built. A given α² (here 2) needs
+        // no analysis: phase-zero weight α²/(α² + R) with R = 1/k for k ones (derived as above).
+        Scenario or70 = QuantumNets.or(70, null);
+        boolean[] x = new boolean[70];
+        x[3] = true;
+        x[69] = true;
+        SimulationResult r = Simulation.run(or70, SimulationOptions.defaults().withAlpha2(2).withFocusBits(x));
+        assertEquals(SimulationResult.INPUT, r.scope);
+        assertEquals("given", r.alpha2Source);
+        assertEquals(-1, r.domainSize);
+        assertEquals(-1, r.focus().mask);
+        assertEquals(70, r.focus().input.length());
+        assertEquals('1', r.focus().input.charAt(69));
+        assertEquals(2 / (2 + 0.5), r.focus().phaseZeroWeight, 1e-12);
+        assertEquals(7, r.stateQubits); // ⌈log₂ 71⌉ (derived)
+
+        // Too many edges for one input either: the limit and what to try instead.
+        Scenario big = QuantumNets.or(Simulation.MAX_EDGES + 1, null);
+        ScenarioException e = assertThrows(ScenarioException.class,
+                () -> Simulation.run(big, SimulationOptions.defaults().withFocusBits(new boolean[Simulation.MAX_EDGES + 1])));
+        assertEquals("$.graph.edges", e.path());
+        assertTrue(e.getMessage().contains("at most " + Simulation.MAX_EDGES + " edges, even for one input")
+                && e.getMessage().contains("analyze --input"), e.getMessage());
+    }
 }

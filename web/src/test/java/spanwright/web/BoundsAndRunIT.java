@@ -137,4 +137,48 @@ class BoundsAndRunIT extends PageTestBase {
             page.$("tab-summary").click();
         }
     }
+
+    /*
+     * Beyond the whole-domain limit (2^18 inputs > 65,536: the ladder of 9 rungs, 18 variables, our
+     * own bench scenario), the Run sheet simulates the input in focus alone. Source of the expected
+     * numbers: the JVM's JsonFacade.simulate for the same text and the options the page sent.
+     */
+    @Test
+    @SuppressWarnings("unchecked")
+    void runSheetSimulatesOneInputOfALargeDomain() throws java.io.IOException {
+        java.nio.file.Path file = java.nio.file.Files.createTempFile("ladder18-run-", ".json");
+        try {
+            java.nio.file.Files.writeString(file, BenchIT.ladder(9));
+            int serial = page.serial();
+            page.$("open-file").sendKeys(file.toString());
+            page.waitForAnalysis(serial, WAIT);
+            assertEquals("ready", page.js("return document.body.dataset.analysis;"), page.$("error-box").getText());
+            String scenario = scenarioText();
+            page.js("document.body.dataset.focusDrawn = '';");
+            page.driver.findElement(By.tagName("body")).sendKeys("1");
+            page.waitFor("focus drawn", WAIT, () -> !"".equals(page.js("return document.body.dataset.focusDrawn || '';")));
+            String x = (String) page.js("return window.Spanwright.focus();");
+            assertEquals(18, x.length());
+            page.$("tab-run").click();
+            page.waitFor("simulated for " + x, WAIT, () -> "ready".equals(page.js("return document.body.dataset.simulation;"))
+                    && x.equals(page.$("run-focus").getAttribute("data-x")));
+            assertEquals("input", page.$("run-body").getAttribute("data-scope"));
+            String options = page.$("run-body").getAttribute("data-options");
+            Map<String, Object> answer = (Map<String, Object>) Json.parse(JsonFacade.simulate(scenario, options));
+            assertEquals(Boolean.TRUE, answer.get("ok"), () -> "JVM simulation failed: " + answer);
+            Map<String, Object> r = (Map<String, Object>) answer.get("result");
+            assertEquals("input", r.get("scope"));
+            Map<String, Object> focus = (Map<String, Object>) r.get("focus");
+            assertValue(focus.get("phaseZeroWeight"), page.$("run-focus").getAttribute("data-phase-zero-weight"), "weight of |0> on phase 0");
+            assertEquals(String.valueOf(((List<Object>) focus.get("spectrum")).size()), page.$("run-circle").getAttribute("data-phases"), "eigenphases drawn");
+            for (String k : new String[] {"bits", "queries", "qubits"}) {
+                assertValue(r.get(k), page.$("run-" + k).getAttribute("data-value"), k + " (none for one input)");
+            }
+            String summary = page.$("run-summary").getText();
+            assertTrue(summary.contains("Only the input in focus is simulated") && summary.contains("65536"), summary);
+            assertTrue(page.$("run-error").getAttribute("hidden") != null, "no error shown");
+        } finally {
+            java.nio.file.Files.deleteIfExists(file);
+        }
+    }
 }
