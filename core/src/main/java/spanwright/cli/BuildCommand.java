@@ -258,8 +258,9 @@ final class BuildCommand {
         }
         switch (head) {
             case "$.expression":
-            case "$.function":
                 return "EXPR";
+            case "$.function":
+                return "EXPR|TABLE";
             case "$.variables":
                 return "--vars";
             case "$.order":

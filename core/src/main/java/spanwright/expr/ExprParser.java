@@ -86,10 +86,55 @@ public final class ExprParser {
         }
     }
 
+    /**
+     * Is {@code text} (trimmed) a string of at least two characters 0/1, such as a truth table?
+     * Such text is never an expression (the parser would stop at its second character).
+     */
+    public static boolean looksLikeTruthTable(String text) {
+        String t = text == null ? "" : text.trim();
+        if (t.length() < 2) {
+            return false;
+        }
+        for (int i = 0; i < t.length(); i++) {
+            if (t.charAt(i) != '0' && t.charAt(i) != '1') {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * For a string of 0/1 ({@link #looksLikeTruthTable}) whose length is not a power of two, what
+     * a truth table needs, e.g. "a truth table needs 2^n characters 0 or 1, one per input (got 7;
+     * 4 would make 2 variables, 8 would make 3)"; null otherwise.
+     */
+    public static String truthTableLengthProblem(String text) {
+        if (!looksLikeTruthTable(text)) {
+            return null;
+        }
+        int len = text.trim().length();
+        if ((len & (len - 1)) == 0) {
+            return null;
+        }
+        int below = 31 - Integer.numberOfLeadingZeros(len); // 2^below < len < 2^(below+1)
+        return "a truth table needs 2^n characters 0 or 1, one per input in input order (got " + len + "; "
+                + (below >= 1 ? (1 << below) + " would make " + below + " variable" + (below == 1 ? "" : "s") + ", " : "")
+                + (below < 30 ? (1 << (below + 1)) + " would make " + (below + 1) + ")" : "at most 2^30)");
+    }
+
     private Expr whole() {
         skipWs();
         if (pos >= text.length()) {
             throw new ExprException(1, "the expression is empty");
+        }
+        if (looksLikeTruthTable(text)) {
+            String length = truthTableLengthProblem(text);
+            int len = text.trim().length();
+            throw new ExprException(pos + 1, (length != null ? length + "; and here"
+                    : "\"" + (len > 40 ? text.trim().substring(0, 37) + "…" : text.trim()) + "\" reads as a truth table of "
+                    + Integer.numberOfTrailingZeros(len) + " variable" + (len == 2 ? "" : "s") + ", but here")
+                    + " f is an expression over the variables (e.g. a & !b); a scenario is built from a truth table by"
+                    + " the decision-tree builder (build tree TABLE, or New from… → a function)");
         }
         Expr e = iff();
         skipWs();

@@ -87,6 +87,10 @@ public final class DecisionTreeBuilder {
             Weights weights) {
         String text = function == null ? "" : function.trim();
         int tableVars = TruthTable.variablesOfString(text);
+        String badLength = spanwright.expr.ExprParser.truthTableLengthProblem(text);
+        if (badLength != null) {
+            throw new ScenarioException("truth-table", "$.function", badLength);
+        }
         List<String> vars;
         TruthTable table;
         String functionText;

@@ -379,4 +379,22 @@ class ExprParserTest {
         assertEquals(8, error("thr(2, )", ABCD).column());
         assertTrue(error("thr(1234567, a)", ABCD).getMessage().contains("whole number k"), "k is bounded");
     }
+
+    @Test
+    void aTruthTableWhereAnExpressionIsExpectedIsNamed() {
+        // Common practice, no source: a string of 0s and 1s is a truth table, not an expression;
+        // the message says so, with the length a table needs when it has none of 2^n.
+        ExprException odd = error("0111011", ABCD);
+        assertEquals(1, odd.column());
+        assertTrue(odd.getMessage().contains("a truth table needs 2^n characters 0 or 1")
+                && odd.getMessage().contains("got 7; 4 would make 2 variables, 8 would make 3"), odd.getMessage());
+        ExprException table = error("0110", ABCD);
+        assertTrue(table.getMessage().contains("truth table of 2 variables") && table.getMessage().contains("build tree"),
+                table.getMessage());
+        assertEquals(null, ExprParser.truthTableLengthProblem("0110"));
+        assertEquals(null, ExprParser.truthTableLengthProblem("a & b"));
+        assertTrue(ExprParser.truthTableLengthProblem("011").contains("got 3; 2 would make 1 variable, 4 would make 2"));
+        // single digits stay constants
+        assertEquals(new Expr.Const(true).toString(), ExprParser.parse("1", ABCD).toString());
+    }
 }

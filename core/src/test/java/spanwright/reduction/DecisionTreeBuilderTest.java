@@ -242,7 +242,14 @@ class DecisionTreeBuilderTest {
         assertEquals("$.variables", count.path());
         ScenarioException table = assertThrows(ScenarioException.class,
                 () -> DecisionTreeBuilder.build("011", null, false, null, GUESS));
-        assertEquals("expression", table.code()); // not 2^n values: read as an expression, and 011 is none
+        // not 2^n values: the message says what a truth table needs (common practice, no source)
+        assertEquals("truth-table", table.code());
+        assertEquals("$.function", table.path());
+        assertTrue(table.getMessage().contains("2^n characters") && table.getMessage().contains("got 3")
+                && table.getMessage().contains("4 would make 2"), table.getMessage());
+        ScenarioException seven = assertThrows(ScenarioException.class,
+                () -> DecisionTreeBuilder.build("0111011", null, false, null, GUESS));
+        assertTrue(seven.getMessage().contains("got 7; 4 would make 2 variables, 8 would make 3"), seven.getMessage());
         ScenarioException big = assertThrows(ScenarioException.class,
                 () -> DecisionTreeBuilder.build(fold("any", 15), null, false, null, GUESS));
         assertEquals("too-many-variables", big.code());
