@@ -41,24 +41,19 @@ final class Bench {
                 throw new Main.UsageException("bench: " + a + " needs a value");
             }
             String v = args.get(++i);
-            int value;
-            try {
-                value = Integer.parseInt(v);
-            } catch (NumberFormatException e) {
-                throw new Main.UsageException("bench: " + a + " takes a whole number, got " + v);
-            }
             switch (a) {
-                case "--vars": vars = value; break;
-                case "--vertices": vertices = value; break;
-                case "--edges": edges = value; break;
-                case "--scenarios": scenarios = value; break;
-                case "--seed": seed = value; break;
-                case "--rounds": rounds = value; break;
+                case "--vars": vars = (int) Main.whole("bench", a, v, 1, 24); break;
+                case "--vertices": vertices = (int) Main.whole("bench", a, v, 2, 100_000); break;
+                case "--edges": edges = (int) Main.whole("bench", a, v, 1, 1_000_000); break;
+                case "--scenarios": scenarios = (int) Main.whole("bench", a, v, 1, 10_000); break;
+                case "--seed": seed = (int) Main.whole("bench", a, v, Integer.MIN_VALUE, Integer.MAX_VALUE); break;
+                case "--rounds": rounds = (int) Main.whole("bench", a, v, 2, 1000); break;
                 default: throw new Main.UsageException("bench: unknown option " + a);
             }
         }
-        if (vars < 1 || vars > 24 || vertices < 2 || edges < vertices - 1 || scenarios < 1 || rounds < 2) {
-            throw new Main.UsageException("bench: need 1 ≤ vars ≤ 24, vertices ≥ 2, edges ≥ vertices − 1, rounds ≥ 2");
+        if (edges < vertices - 1) {
+            throw new Main.UsageException("bench: --edges must be at least --vertices − 1 = " + (vertices - 1)
+                    + " (a spanning tree), got " + edges);
         }
         Random rnd = new Random(seed);
         List<Scenario> list = new ArrayList<>();
@@ -98,13 +93,17 @@ final class Bench {
         int leaves = 16;
         long seed = 1;
         int rounds = 4;
-        for (int i = 0; i + 1 < args.size(); i += 2) {
-            int v = Integer.parseInt(args.get(i + 1));
-            switch (args.get(i)) {
-                case "--leaves": leaves = v; break;
-                case "--seed": seed = v; break;
-                case "--rounds": rounds = v; break;
-                default: throw new Main.UsageException("bench optimize: unknown option " + args.get(i));
+        for (int i = 0; i < args.size(); i += 2) {
+            String a = args.get(i);
+            if (i + 1 >= args.size()) {
+                throw new Main.UsageException("bench optimize: " + a + " needs a value");
+            }
+            String v = args.get(i + 1);
+            switch (a) {
+                case "--leaves": leaves = (int) Main.whole("bench optimize", a, v, 1, 24); break;
+                case "--seed": seed = Main.whole("bench optimize", a, v, Integer.MIN_VALUE, Integer.MAX_VALUE); break;
+                case "--rounds": rounds = (int) Main.whole("bench optimize", a, v, 1, 1000); break;
+                default: throw new Main.UsageException("bench optimize: unknown option " + a);
             }
         }
         Scenario sc = RandomScenarios.readOnceFormula(new Random(seed), leaves, 1.0);

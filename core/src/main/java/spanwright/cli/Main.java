@@ -83,12 +83,58 @@ public final class Main {
             err.println("spanwright: " + e.getMessage());
             return INVALID;
         } catch (ScenarioException e) {
+            if (e.path() != null && e.path().startsWith("$options.")) {
+                // an option the command passed on to the engine: name the option, not the scenario
+                err.println("spanwright: " + command + ": " + optionName(e.path()) + ": " + e.getMessage() + " ["
+                        + e.code() + "]");
+                return INVALID;
+            }
             err.println("spanwright: invalid scenario: " + e.describe() + " [" + e.code() + "]");
             return INVALID;
         } catch (Throwable e) { // deliberately everything else: no stack trace reaches a user
             err.println("spanwright: " + internal(e));
             return INTERNAL;
         }
+    }
+
+    /** The command-line option behind an engine option path: {@code $options.maxInputs} → {@code --max-inputs}. */
+    static String optionName(String path) {
+        String key = path.substring("$options.".length());
+        StringBuilder sb = new StringBuilder("--");
+        for (char c : key.toCharArray()) {
+            if (Character.isUpperCase(c)) {
+                sb.append('-').append(Character.toLowerCase(c));
+            } else {
+                sb.append(c);
+            }
+        }
+        return sb.toString();
+    }
+
+    /**
+     * The whole number {@code value} of {@code option}, within [min, max]; otherwise a usage error
+     * that names the command, the option and the accepted range.
+     */
+    static long whole(String command, String option, String value, long min, long max) {
+        long v;
+        try {
+            v = Long.parseLong(value.trim());
+        } catch (NumberFormatException e) {
+            throw new UsageException(command + ": " + option + " takes a whole number" + range(min, max) + ", got \""
+                    + value + "\"");
+        }
+        if (v < min || v > max) {
+            throw new UsageException(command + ": " + option + " takes a whole number" + range(min, max) + ", got "
+                    + v);
+        }
+        return v;
+    }
+
+    private static String range(long min, long max) {
+        if (max == Long.MAX_VALUE) {
+            return min == Long.MIN_VALUE ? "" : " >= " + min;
+        }
+        return " from " + min + " to " + max;
     }
 
     /** One line for an unexpected failure: what it was and what to do. */

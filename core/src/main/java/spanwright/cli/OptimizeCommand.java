@@ -23,6 +23,12 @@ import spanwright.optimize.WeightOptimizer;
  * (beyond enumeration, by a working set of worst inputs from the structural engine).
  */
 final class OptimizeCommand {
+    /** Accepted ranges (the engine takes at most 1,000 starts and 100,000 iterations). */
+    static final long MAX_STARTS = 1000;
+    static final long MAX_ITERATIONS = 100_000;
+    static final long MAX_SECONDS = 86_400;
+    static final long MAX_SEED = 1L << 53;
+
     private OptimizeCommand() {}
 
     static int run(List<String> args, PrintStream out, PrintStream err) {
@@ -46,15 +52,16 @@ final class OptimizeCommand {
                     options.put("mode", value(args, ++i, a));
                     break;
                 case "--starts":
+                    options.put("starts", (double) Main.whole("optimize", a, value(args, ++i, a), 1, MAX_STARTS));
+                    break;
                 case "--seed":
+                    options.put("seed", (double) Main.whole("optimize", a, value(args, ++i, a), 1, MAX_SEED));
+                    break;
                 case "--iterations":
+                    options.put("iterations", (double) Main.whole("optimize", a, value(args, ++i, a), 1, MAX_ITERATIONS));
+                    break;
                 case "--seconds":
-                    String v = value(args, ++i, a);
-                    try {
-                        options.put(a.substring(2), (double) Long.parseLong(v));
-                    } catch (NumberFormatException e) {
-                        throw new Main.UsageException("optimize: " + a + " takes a whole number, got " + v);
-                    }
+                    options.put("seconds", (double) Main.whole("optimize", a, value(args, ++i, a), 1, MAX_SECONDS));
                     break;
                 default:
                     if (a.startsWith("-")) {

@@ -56,7 +56,7 @@ final class SimulateCommand {
                     bench = true;
                     break;
                 case "--seed":
-                    seed = (long) number(args, ++i, a);
+                    seed = Main.whole("simulate", a, value(args, ++i, a), Long.MIN_VALUE, Long.MAX_VALUE);
                     break;
                 case "--input":
                     input = value(args, ++i, a);
@@ -64,13 +64,14 @@ final class SimulateCommand {
                 case "--epsilon":
                     opt = opt.withEpsilon(number(args, ++i, a));
                     if (!(opt.epsilon() > 0 && opt.epsilon() < 1)) {
-                        throw new Main.UsageException("simulate: --epsilon takes a number strictly between 0 and 1");
+                        throw new Main.UsageException("simulate: --epsilon takes a number strictly between 0 and 1, got "
+                                + args.get(i));
                     }
                     break;
                 case "--alpha2":
                     opt = opt.withAlpha2(number(args, ++i, a));
                     if (!(opt.alpha2() > 0) || Double.isInfinite(opt.alpha2())) {
-                        throw new Main.UsageException("simulate: --alpha2 takes a finite number > 0");
+                        throw new Main.UsageException("simulate: --alpha2 takes a finite number > 0, got " + args.get(i));
                     }
                     break;
                 default:
