@@ -140,13 +140,7 @@ final class BuildCommand {
             OutputFiles.write("build", file, text);
             err.println("spanwright: wrote " + file);
         }
-        StringBuilder sb = new StringBuilder("spanwright: built");
-        boolean first = true;
-        for (Map.Entry<String, Object> e : built.stats().entrySet()) {
-            sb.append(first ? " " : ", ").append(e.getKey()).append(" = ").append(Json.write(e.getValue()));
-            first = false;
-        }
-        err.println(sb);
+        err.print(builtText(built.stats()));
         return Main.OK;
     }
 
@@ -177,6 +171,90 @@ final class BuildCommand {
         GraphFile g = GraphFormats.read(Main.readScenarioText(file), format, "$.graph");
         return HostGraphBuilder.imported(g, options.get("--s"), options.get("--t"), missing,
                 options.get("--literal-key"), options.getOrDefault("--weight-key", GraphFormats.WEIGHT));
+    }
+
+    /**
+     * Words for the builders' statistics, as the options and docs/builders.md name things (the JSON
+     * keys stay in the page's answer and in {@code stats}); a key not listed is split into words.
+     */
+    private static final String[][] STAT_WORDS = {
+        {"strategy", "tree shape"}, {"order", "query order (--order)"}, {"output", "output (--diagram: diagram)"},
+        {"depth", "depth T (queries on the longest path)"}, {"wrongGuesses", "guess rank G (most wrong guesses on a path)"},
+        {"treeDecisionVertices", "tree: decision vertices"}, {"treeVertices", "tree: vertices"}, {"treeEdges", "tree: edges"},
+        {"diagramDecisionVertices", "diagram: decision vertices"}, {"diagramVertices", "diagram: vertices"},
+        {"diagramEdges", "diagram: edges"}, {"weights", "weights (--weights)"},
+        {"boundPositive", "W+ at most (guaranteed)"}, {"boundNegative", "W- at most (guaranteed)"},
+        {"leaves", "leaves (literal occurrences)"}, {"readOnce", "read-once"},
+        {"predictedPositive", "predicted W+"}, {"predictedNegative", "predicted W-"},
+        {"predictedComplexity", "predicted sqrt(W+ W-)"},
+        {"outerPositive", "outer W+"}, {"outerNegative", "outer W-"}, {"innerPositive", "inner W+"},
+        {"innerNegative", "inner W-"}, {"negatedInnerPositive", "negated inner W+"},
+        {"negatedInnerNegative", "negated inner W-"}, {"productBound", "W+ W- at most (outer x inner)"},
+        {"gadgets", "inner copies"}, {"inner", "inner scenario"}, {"family", "host family"}, {"size", "SIZE"},
+        {"s", "s (--s)"}, {"t", "t (--t)"}, {"paths", "simple s-t paths"}, {"promise", "promise"},
+        {"functionOmitted", "function omitted"}, {"format", "file format (--format)"}
+    };
+
+    /** The construction's summary for stderr: a header with the sizes, then one labelled line per statistic. */
+    static String builtText(Map<String, Object> stats) {
+        StringBuilder sb = new StringBuilder("spanwright: built a scenario of ");
+        sb.append(statValue(stats.get("vertices"))).append(" vertices, ").append(statValue(stats.get("edges")))
+                .append(" edges and ").append(statValue(stats.get("variables"))).append(" variables\n");
+        int width = 0;
+        for (String k : stats.keySet()) {
+            width = Math.max(width, statLabel(k).length());
+        }
+        for (Map.Entry<String, Object> e : stats.entrySet()) {
+            String k = e.getKey();
+            if (k.equals("vertices") || k.equals("edges") || k.equals("variables")) {
+                continue;
+            }
+            sb.append("  ").append(Main.pad(statLabel(k), width + 2)).append(statValue(e.getValue())).append('\n');
+        }
+        return sb.toString();
+    }
+
+    static String statLabel(String key) {
+        for (String[] w : STAT_WORDS) {
+            if (w[0].equals(key)) {
+                return w[1];
+            }
+        }
+        StringBuilder sb = new StringBuilder();
+        for (char c : key.toCharArray()) {
+            if (Character.isUpperCase(c)) {
+                sb.append(' ').append(Character.toLowerCase(c));
+            } else {
+                sb.append(c);
+            }
+        }
+        return sb.toString();
+    }
+
+    static String statValue(Object v) {
+        if (v == null || v == Json.NULL) {
+            return "not counted";
+        }
+        if (v instanceof Boolean) {
+            return (Boolean) v ? "yes" : "no";
+        }
+        if (v instanceof Number) {
+            double d = ((Number) v).doubleValue();
+            return d == Math.rint(d) && Math.abs(d) < 1e15 ? String.valueOf((long) d) : spanwright.io.NumberText.sig(d, 10);
+        }
+        if (v instanceof List) {
+            List<?> l = (List<?>) v;
+            boolean numbers = !l.isEmpty();
+            StringBuilder sb = new StringBuilder();
+            for (Object o : l) {
+                numbers &= o instanceof Number;
+            }
+            for (int i = 0; i < l.size(); i++) {
+                sb.append(i == 0 ? "" : numbers ? "x" : ", ").append(statValue(l.get(i)));
+            }
+            return sb.toString();
+        }
+        return String.valueOf(v);
     }
 
     private static void allow(String what, Map<String, String> options, String... allowed) {

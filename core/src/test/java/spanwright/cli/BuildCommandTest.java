@@ -44,7 +44,12 @@ class BuildCommandTest {
             assertEquals("0", r[0], String.join(" ", c) + "\n" + r[2]);
             Scenario sc = ScenarioReader.read(r[1]);
             assertEquals(Boolean.TRUE, Analysis.run(sc).correct(), String.join(" ", c));
-            assertTrue(r[2].contains("built vertices = "), r[2]);
+            // the summary speaks the words of the options and docs, not the JSON keys (readOnce,
+            // wrongGuesses, …): no camelCase word and no quoted JSON value on stderr
+            assertTrue(r[2].startsWith("spanwright: built a scenario of " + sc.vertexCount() + " vertices, "
+                    + sc.edges().size() + " edges and " + sc.variableCount() + " variables"), r[2]);
+            assertFalse(java.util.regex.Pattern.compile("\\b[a-z]+[A-Z][a-zA-Z]*\\b").matcher(r[2]).find(), r[2]);
+            assertFalse(r[2].contains("\""), r[2]);
         }
         // compose two files, output with -o
         Path outer = dir.resolve("outer.json");
