@@ -15,13 +15,18 @@ final class AnalyzeMore {
     private AnalyzeMore() {}
 
     static int structure(Scenario sc, Analysis.Choice choice, boolean json, boolean inputs, double seconds,
-            PrintStream out) {
+            PrintStream out, PrintStream err, boolean quiet) {
         if (inputs) {
             throw new Main.UsageException("analyze: --inputs lists every input, and this scenario has 2^"
                     + sc.variableCount() + " of them; the structural method shows the worst inputs instead (drop"
                     + " --inputs), and --input BITS shows any one input's witness");
         }
-        StructuralAnalysis.Result r = StructuralAnalysis.run(sc, seconds);
+        StructuralAnalysis.Result r;
+        try (Progress progress = Progress.start("analyze", err, quiet)) {
+            progress.phase("structural analysis (heaviest path and bond, branch and bound at most "
+                    + spanwright.io.NumberText.sig(seconds, 4) + " s per side, then the reduction check)");
+            r = StructuralAnalysis.run(sc, seconds);
+        }
         if (json) {
             out.println(Json.writePretty(StructureJson.analysis(r, choice)).trim());
         } else {

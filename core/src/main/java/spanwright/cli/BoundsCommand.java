@@ -32,7 +32,7 @@ final class BoundsCommand {
     private BoundsCommand() {}
 
     static String usage() {
-        return "  bounds [FILE] [--json] | bounds --bench [--seed S] [--large] | bounds --doc-table FILE...\n"
+        return "  bounds [FILE] [--json] [--quiet] | bounds --bench [--seed S] [--large] | bounds --doc-table FILE...\n"
                 + "      Lower bounds for the scenario's function: the general adversary ADV+- (an SDP, with its\n"
                 + "      certified interval; up to " + GeneralAdversary.CLI_MAX_VARIABLES
                 + " variables, minutes beyond 6), the positive adversary ADV, and D, C0, C1,\n"
@@ -47,6 +47,7 @@ final class BoundsCommand {
         boolean bench = false;
         boolean large = false;
         boolean docTable = false;
+        boolean quiet = false;
         List<String> files = new ArrayList<>();
         long seed = 1;
         String file = null;
@@ -56,6 +57,8 @@ final class BoundsCommand {
                 json = true;
             } else if (a.equals("--bench")) {
                 bench = true;
+            } else if (a.equals("--quiet")) {
+                quiet = true;
             } else if (a.equals("--large")) {
                 large = true;
             } else if (a.equals("--doc-table")) {
@@ -99,7 +102,8 @@ final class BoundsCommand {
         }
         long start = System.nanoTime();
         BoundsReport r;
-        try {
+        try (Progress progress = Progress.start("bounds", err, quiet)) {
+            progress.phase("lower bounds and classical measures (the general adversary SDP takes longest)");
             r = Bounds.compute(sc, Bounds.Limits.CLI);
         } catch (Bounds.BoundViolation e) {
             err.println("spanwright: BOUND VIOLATED (a bug in Spanwright, please report it): " + e.getMessage());

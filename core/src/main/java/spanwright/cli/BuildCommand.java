@@ -26,7 +26,7 @@ final class BuildCommand {
     private BuildCommand() {}
 
     static String usage() {
-        return "  build formula EXPR [--vars a,b,c] [--weights rule|unit] [-o FILE]\n"
+        return "  build formula EXPR [--vars a,b,c] [--weights rule|unit] [-o FILE] [--quiet]\n"
                 + "  build tree EXPR|TABLE [--vars a,b,c] [--diagram] [--order a,b,c] [--weights guess|unit] [-o FILE]\n"
                 + "  build host FAMILY SIZE [--s V] [--t V] [--seed N] [--at-most-missing K] [-o FILE]\n"
                 + "  build host given FILE [--s V] [--t V] [--at-most-missing K] [-o FILE]\n"
@@ -37,7 +37,8 @@ final class BuildCommand {
                 + "      or diagram; TABLE = 2^n characters 0/1), a host graph (FAMILY: path, cycle, grid,\n"
                 + "      complete, bipartite, hypercube, random; SIZE like 3x4; or a GraphML, DOT, GML or\n"
                 + "      CSV edge-list file: one variable per edge, or the literal from the edge attribute\n"
-                + "      --literal-key; weight from --weight-key, default \"weight\") or a composition.\n";
+                + "      --literal-key; weight from --weight-key, default \"weight\") or a composition.\n"
+                + "      A summary goes to stderr; --quiet (any form) leaves it and the progress lines out.\n";
     }
 
     static int run(List<String> args, PrintStream out, PrintStream err) {
@@ -47,9 +48,12 @@ final class BuildCommand {
         String what = args.get(0);
         List<String> positional = new ArrayList<>();
         Map<String, String> options = new LinkedHashMap<>();
+        boolean quiet = false;
         for (int i = 1; i < args.size(); i++) {
             String a = args.get(i);
-            if (a.equals("--diagram")) {
+            if (a.equals("--quiet")) {
+                quiet = true;
+            } else if (a.equals("--diagram")) {
                 options.put(a, "true");
             } else if (a.equals("-o") || (a.startsWith("--") && a.length() > 2)) {
                 if (i + 1 >= args.size()) {
@@ -125,7 +129,8 @@ final class BuildCommand {
         inputs.add(importFile);
         OutputFiles.refuseClashes("build " + what, inputs, Arrays.asList(options.get("-o")));
         Built built;
-        try {
+        try (Progress progress = Progress.start("build " + what, err, quiet)) {
+            progress.phase("building the scenario and checking that it decides its function");
             built = importFile != null ? importHost(importFile, options) : BuildRequest.run(request);
         } catch (ScenarioException e) {
             err.println("spanwright: build " + what + ": " + where(e.path(), files) + ": " + e.getMessage() + " ["
@@ -138,9 +143,13 @@ final class BuildCommand {
             out.print(text);
         } else {
             OutputFiles.write("build", file, text);
-            err.println("spanwright: wrote " + file);
+            if (!quiet) {
+                err.println("spanwright: wrote " + file);
+            }
         }
-        err.print(builtText(built.stats()));
+        if (!quiet) {
+            err.print(builtText(built.stats()));
+        }
         return Main.OK;
     }
 

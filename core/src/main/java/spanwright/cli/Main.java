@@ -169,7 +169,7 @@ public final class Main {
         return "usage: java -jar spanwright.jar <command> [options]\n"
                 + "\n"
                 + "  analyze [FILE] [--json] [--inputs] [--method auto|enumerate|structure] [--input BITS]\n"
-                + "          [--seconds S]\n"
+                + "          [--seconds S] [--quiet]\n"
                 + "      Check the reduction, find the worst inputs with their witnesses (R on positive inputs,\n"
                 + "      C on negative inputs) and the bound sqrt(W+ W-). Up to 20 variables every input is\n"
                 + "      enumerated; beyond, W+ and W- come from the graph's structure (heaviest path and bond,\n"
@@ -177,8 +177,10 @@ public final class Main {
                 + "      --json: machine-readable; --inputs: every input's row (enumeration only);\n"
                 + "      --input BITS: one input's witness, at any size; --seconds: branch and bound's time per\n"
                 + "      side (default 30), after which it reports a certified interval.\n"
+                + "      Runs longer than 2 s print progress lines on stderr (every 5 s or so); --quiet: none\n"
+                + "      (the same for optimize, bounds, build and simulate).\n"
                 + "  optimize [FILE] [--starts K] [--seed S] [--iterations N] [--seconds T] [--tie literal]\n"
-                + "           [--json] [-o OUT.json]\n"
+                + "           [--json] [-o OUT.json] [--quiet]\n"
                 + "      Choose edge weights that lower sqrt(W+ W-) (monotone descent, with certificates);\n"
                 + "      -o writes the scenario with the new weights.\n"
                 + "  bench [--vars 14] [--vertices 24] [--edges 48] [--scenarios 8] [--seed 1] [--rounds 5]\n"
@@ -219,9 +221,13 @@ public final class Main {
         }
     }
 
+    /** Inputs enumerated between two progress reports (a few milliseconds of work). */
+    private static final long ENUMERATION_CHUNK = 1 << 14;
+
     private static int analyze(List<String> args, PrintStream out, PrintStream err) {
         boolean json = false;
         boolean inputs = false;
+        boolean quiet = false;
         String file = null;
         Analysis.Method method = Analysis.Method.AUTO;
         String input = null;
@@ -232,6 +238,8 @@ public final class Main {
                 json = true;
             } else if (a.equals("--inputs")) {
                 inputs = true;
+            } else if (a.equals("--quiet")) {
+                quiet = true;
             } else if (a.equals("--seconds")) {
                 if (i + 1 >= args.size()) {
                     throw new UsageException("analyze: --seconds needs a value");
@@ -275,12 +283,22 @@ public final class Main {
         }
         Analysis.Choice choice = Analysis.choose(sc, method);
         if (choice.method() == Analysis.Method.STRUCTURE) {
-            return AnalyzeMore.structure(sc, choice, json, inputs, seconds, out);
+            return AnalyzeMore.structure(sc, choice, json, inputs, seconds, out, err, quiet);
         }
         if (inputs) {
             Analysis.checkListable(spanwright.domain.InputDomain.of(sc).size()); // before the work
         }
-        AnalysisResult r = Analysis.run(sc);
+        AnalysisResult r;
+        try (Progress progress = Progress.start("analyze", err, quiet)) {
+            progress.phase("listing the domain");
+            spanwright.analysis.AnalysisRun run = Analysis.start(sc);
+            progress.phase("enumerating inputs (R or C of each)");
+            progress.count(0, run.total());
+            while (!run.step(ENUMERATION_CHUNK)) {
+                progress.count(run.processed(), run.total());
+            }
+            r = run.result();
+        }
         if (json) {
             Map<String, Object> m = ResultJson.analysis(r, inputs);
             out.println(Json.writePretty(m).trim());

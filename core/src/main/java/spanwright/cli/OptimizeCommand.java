@@ -35,12 +35,16 @@ final class OptimizeCommand {
         String file = null;
         String output = null;
         boolean json = false;
+        boolean quiet = false;
         Map<String, Object> options = new LinkedHashMap<>();
         for (int i = 0; i < args.size(); i++) {
             String a = args.get(i);
             switch (a) {
                 case "--json":
                     json = true;
+                    break;
+                case "--quiet":
+                    quiet = true;
                     break;
                 case "-o":
                     output = value(args, ++i, a);
@@ -77,20 +81,33 @@ final class OptimizeCommand {
         String text = Main.readScenarioText(file);
         Scenario sc = ScenarioReader.read(text);
         OptimizerOptions opt = JsonFacade.optimizerOptions(Json.write(options));
-        OptimizationResult r = WeightOptimizer.optimize(sc, opt, null);
+        OptimizationResult r;
+        String standing;
+        try (Progress progress = Progress.start("optimize", err, quiet)) {
+            Object k = options.get("starts");
+            Object t = options.get("seconds");
+            String of = k == null ? "" : " of " + Math.round((Double) k);
+            progress.phase("optimising edge weights" + (t == null ? "" : " (time budget " + Math.round((Double) t) + " s)"));
+            r = WeightOptimizer.optimize(sc, opt, (start, iteration, complexity) -> {
+                progress.detail("start " + (start + 1) + of + ", step " + iteration
+                        + ", sqrt(W+ W-) = " + NumberText.sig(complexity, 6));
+                return true;
+            });
+            progress.phase("checking the reduction for the new weights");
+            standing = Analysis.standing(r.scenario);
+        }
         if (output != null) {
             OutputFiles.write("optimize", output, ResultJson.withWeights(text, r.scenario));
         }
         if (json) {
             java.util.Map<String, Object> m = ResultJson.optimization(r);
-            String standing = Analysis.standing(r.scenario);
             m.put("complexityIsBound", standing == null);
             if (standing != null) {
                 m.put("complexityNote", standing);
             }
             out.println(Json.writePretty(m).trim());
         } else {
-            out.print(summary(r, output));
+            out.print(summary(r, output, standing));
         }
         return 0;
     }
@@ -106,7 +123,7 @@ final class OptimizeCommand {
         return mask >= 0 ? Inputs.format(mask, n) : cert == null ? "—" : cert.input;
     }
 
-    private static String summary(OptimizationResult r, String output) {
+    private static String summary(OptimizationResult r, String output, String standing) {
         Scenario sc = r.scenario;
         int n = sc.variableCount();
         StringBuilder sb = new StringBuilder();
@@ -135,7 +152,6 @@ final class OptimizeCommand {
         if (output != null) {
             sb.append("  written to ").append(output).append('\n');
         }
-        String standing = Analysis.standing(sc);
         if (standing != null) {
             sb.append("  warning: the weights were chosen for a number that is ").append(standing).append(".\n");
         }

@@ -28,7 +28,8 @@ final class SimulateCommand {
     private SimulateCommand() {}
 
     static String usage() {
-        return "  simulate [FILE] [--input 0110] [--epsilon 0.1] [--alpha2 A] [--inputs] [--json] | simulate --bench\n"
+        return "  simulate [FILE] [--input 0110] [--epsilon 0.1] [--alpha2 A] [--inputs] [--json] [--quiet]\n"
+                + "           | simulate --bench\n"
                 + "      Simulate the span-program algorithm exactly (spectrum of U(x), phase estimation) on every\n"
                 + "      input: the phase bits and queries for error epsilon, qubits; --input shows one input's\n"
                 + "      spectrum, and beyond 65536 inputs simulates that input alone (at any domain size);\n"
@@ -41,6 +42,7 @@ final class SimulateCommand {
         boolean json = false;
         boolean rows = false;
         boolean bench = false;
+        boolean quiet = false;
         long seed = 1;
         SimulationOptions opt = SimulationOptions.defaults();
         for (int i = 0; i < args.size(); i++) {
@@ -51,6 +53,9 @@ final class SimulateCommand {
                     break;
                 case "--inputs":
                     rows = true;
+                    break;
+                case "--quiet":
+                    quiet = true;
                     break;
                 case "--bench":
                     bench = true;
@@ -100,7 +105,19 @@ final class SimulateCommand {
             }
         }
         long t0 = System.nanoTime();
-        SimulationResult r = Simulation.run(sc, opt);
+        SimulationResult r;
+        try (Progress progress = Progress.start("simulate", err, quiet)) {
+            progress.phase(opt.hasFocus() ? "analysing the domain (W+ for alpha^2), then simulating"
+                    : "analysing the domain, then simulating every input");
+            boolean[] first = {true};
+            r = Simulation.run(sc, opt, (done, total) -> {
+                if (first[0]) {
+                    first[0] = false;
+                    progress.phase("simulating every input (one dense decomposition each)");
+                }
+                progress.count(done, total);
+            });
+        }
         long millis = (System.nanoTime() - t0) / 1_000_000;
         if (json) {
             out.println(Json.writePretty(SimulationJson.result(r)).trim());
