@@ -367,10 +367,43 @@ final class SweepCommand {
             return wrong;
         }
 
+        /** When the last line was printed (System.nanoTime()); guarded by err. */
+        long lastLine = System.nanoTime();
+
         void log(String s) {
             if (!a.quiet) {
                 synchronized (err) {
                     err.println("[sweep] " + s);
+                    lastLine = System.nanoTime();
+                }
+            }
+        }
+
+        /**
+         * Waits for every size, printing a line when the sweep has been silent for a while (a size
+         * optimising or bounding for minutes): the policy of {@link Progress}, at most every 5 s
+         * and less often as the sweep grows.
+         */
+        void await(CountDownLatch latch, int sizes) throws InterruptedException {
+            long every = (long) (Progress.DEFAULT_EVERY * 1e9);
+            String e = System.getProperty(Progress.EVERY_PROPERTY);
+            if (e != null) {
+                try {
+                    every = (long) (Math.max(0, Double.parseDouble(e)) * 1e9);
+                } catch (NumberFormatException x) {
+                    every = (long) (Progress.DEFAULT_EVERY * 1e9);
+                }
+            }
+            while (!latch.await(250, java.util.concurrent.TimeUnit.MILLISECONDS)) {
+                long now = System.nanoTime();
+                long gap = Math.max(every, Math.min(60_000_000_000L, (now - started) / 10));
+                boolean quietFor;
+                synchronized (err) {
+                    quietFor = now - lastLine >= gap;
+                }
+                if (quietFor) {
+                    log("working: " + finished.get() + " of " + sizes + " size(s) finished, " + seconds(now - started)
+                            + " so far");
                 }
             }
         }
@@ -405,7 +438,7 @@ final class SweepCommand {
                 }));
             }
             try {
-                latch.await();
+                await(latch, todo.size());
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
                 abort(e, latch);
