@@ -92,6 +92,17 @@ class ProgressTest {
     }
 
     @Test
+    void sweepReportsPerSizeAndQuietSilencesIt() {
+        forceProgress();
+        String[] loud = run("sweep", "or", "--n", "2..3", "--no-bounds", "--iterations", "0", "--json");
+        assertEquals("0", loud[0], loud[2]);
+        assertTrue(loud[2].contains("[sweep] size 2"), loud[2]);
+        String[] quiet = run("sweep", "or", "--n", "2..3", "--no-bounds", "--iterations", "0", "--json", "--quiet");
+        assertEquals("0", quiet[0]);
+        assertEquals("", quiet[2]);
+    }
+
+    @Test
     void aShortRunPrintsNothingByDefault() {
         // the default threshold (2 s) is far above the default scenario's few milliseconds
         String[] r = run("analyze");
