@@ -46,9 +46,19 @@
     return isFinite(n) ? n : raw;   // the engine names a non-number at its path
   }
 
+  /* The engine's built-in inner gadgets (spanwright.reduction.Gadgets): a request names them and
+   * the engine builds them, so the default composition (the current scenario with the first one)
+   * stays small. */
+  const GADGETS = [
+    ["either-of-2", "built-in gadget: either of two (p | q, 2 variables)"],
+    ["both-of-2", "built-in gadget: both of two (p & q, 2 variables)"],
+    ["two-of-3", "built-in gadget: two of three (majority, 3 variables)"]
+  ];
+
   function composePart(sel) {
     const v = sel.value;
     if (v === "current") return JSON.parse(A.text());
+    if (v.indexOf("gadget:") === 0) return v.slice(7);
     const g = A.gallery()[Number(v.slice(2))];
     return g ? JSON.parse(g.text) : null;
   }
@@ -118,13 +128,23 @@
       cur.value = "current";
       cur.textContent = "the current scenario";
       sel.appendChild(cur);
+      if (which === 1) {
+        GADGETS.forEach(function (g) {
+          const op = document.createElement("option");
+          op.value = "gadget:" + g[0];
+          op.textContent = g[1];
+          sel.appendChild(op);
+        });
+      }
       A.gallery().forEach(function (g, i) {
         const op = document.createElement("option");
         op.value = "g:" + i;
         op.textContent = g.title + " (" + g.file + ")";
         sel.appendChild(op);
       });
-      sel.value = keep && sel.querySelector("option[value='" + keep + "']") ? keep : (which === 0 ? "current" : (A.gallery().length ? "g:0" : "current"));
+      // Default: the current scenario as the outer one, a two-variable gadget as the inner one
+      // (two whole scenarios would usually pass the enumeration limit of variables).
+      sel.value = keep && sel.querySelector("option[value='" + keep + "']") ? keep : (which === 0 ? "current" : "gadget:" + GADGETS[0][0]);
     });
   }
 

@@ -32,12 +32,14 @@ final class BuildCommand {
                 + "  build host given FILE [--s V] [--t V] [--at-most-missing K] [-o FILE]\n"
                 + "  build host import GRAPHFILE [--format graphml|dot|gml|csv] [--s V] [--t V]\n"
                 + "                  [--literal-key NAME] [--weight-key NAME] [--at-most-missing K] [-o FILE]\n"
-                + "  build compose OUTER.json INNER.json [-o FILE]\n"
+                + "  build compose OUTER.json INNER.json|GADGET [-o FILE]\n"
                 + "      Write a scenario built from a formula (series-parallel), a function (decision tree\n"
                 + "      or diagram; TABLE = 2^n characters 0/1), a host graph (FAMILY: path, cycle, grid,\n"
                 + "      complete, bipartite, hypercube, random; SIZE like 3x4; or a GraphML, DOT, GML or\n"
                 + "      CSV edge-list file: one variable per edge, or the literal from the edge attribute\n"
-                + "      --literal-key; weight from --weight-key, default \"weight\") or a composition.\n"
+                + "      --literal-key; weight from --weight-key, default \"weight\") or a composition\n"
+                + "      (GADGET: a built-in inner scenario, either-of-2 (p | q), both-of-2 (p & q),\n"
+                + "      two-of-3 (majority)).\n"
                 + "      A summary goes to stderr; --quiet (any form) leaves it and the progress lines out.\n";
     }
 
@@ -114,13 +116,19 @@ final class BuildCommand {
             case "compose":
                 allow(what, options, "-o");
                 if (positional.size() != 2) {
-                    throw new Main.UsageException("build compose: give OUTER.json and INNER.json");
+                    throw new Main.UsageException("build compose: give OUTER.json and INNER.json (or a built-in gadget: "
+                            + String.join(", ", spanwright.reduction.Gadgets.names()) + ")");
                 }
                 request.put("kind", "compose");
                 files.put("$.outer", positional.get(0));
-                files.put("$.inner", positional.get(1));
                 request.put("outer", readJson(positional.get(0)));
-                request.put("inner", readJson(positional.get(1)));
+                String inner = positional.get(1);
+                if (spanwright.reduction.Gadgets.find(inner) != null && !java.nio.file.Files.exists(java.nio.file.Path.of(inner))) {
+                    request.put("inner", inner); // a built-in gadget
+                } else {
+                    files.put("$.inner", inner);
+                    request.put("inner", readJson(inner));
+                }
                 break;
             default:
                 throw new Main.UsageException("build: unknown kind \"" + what + "\" (formula, tree, host, compose)");

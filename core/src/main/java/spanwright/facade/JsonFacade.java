@@ -324,7 +324,9 @@ public final class JsonFacade {
      *       "text":"…GraphML or DOT…","fileName":"h.graphml","format":"graphml","s":…,"t":…,
      *       "literalKey":"literal","weightKey":"weight","atMostMissing":k}} to read a graph file
      *       (everything but {@code text} optional; see {@link #importGraph});</li>
-     *   <li>{@code {"kind":"compose","outer":{scenario},"inner":{scenario}}}.</li>
+     *   <li>{@code {"kind":"compose","outer":{scenario},"inner":{scenario}}}; {@code inner} may instead
+     *       name a built-in gadget ({@code "either-of-2"}, {@code "both-of-2"}, {@code "two-of-3"};
+     *       {@link spanwright.reduction.Gadgets}).</li>
      * </ul>
      * Answer: {@code {"ok":true,"scenario":{format v1 object},"stats":{"vertices","edges",
      * "variables", …builder facts}}} (keys in {@code docs/builders.md}), or the error envelope

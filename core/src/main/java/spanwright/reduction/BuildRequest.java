@@ -99,9 +99,12 @@ public final class BuildRequest {
                     throw new ScenarioException("missing", "$.outer", "missing \"outer\" (the outer scenario)");
                 }
                 if (inner == null) {
-                    throw new ScenarioException("missing", "$.inner", "missing \"inner\" (the inner scenario)");
+                    throw new ScenarioException("missing", "$.inner", "missing \"inner\" (the inner scenario, or the name"
+                            + " of a built-in gadget: " + String.join(", ", Gadgets.names()) + ")");
                 }
-                return CompositionBuilder.compose(scenario(outer, "$.outer"), scenario(inner, "$.inner"));
+                Scenario in = inner instanceof String ? Gadgets.scenario((String) inner, "$.inner")
+                        : scenario(inner, "$.inner");
+                return CompositionBuilder.compose(scenario(outer, "$.outer"), in);
             }
             default:
                 throw new ScenarioException("kind", "$.kind", "unknown build kind \"" + kind

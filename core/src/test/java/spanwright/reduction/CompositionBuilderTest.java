@@ -156,4 +156,34 @@ class CompositionBuilderTest {
         assertEquals("wrong-reduction", w.code());
         assertTrue(w.getMessage().contains("wrong on"), w.getMessage());
     }
+
+    @Test
+    void theBuiltInGadgetsMakeTheDefaultCompositionWork() throws Exception {
+        // Each gadget decides its function (checked by enumeration), and the read-once ones have
+        // sqrt(W+ W-) = sqrt(leaves) under the read-once rule (the adversary bound of a read-once
+        // formula, Barnum & Saks 2004 / Reichardt & Špalek arXiv:0710.2630; from memory): sqrt 2.
+        for (Gadgets.Gadget g : Gadgets.ALL) {
+            AnalysisResult r = Analysis.run(Gadgets.scenario(g.name(), "$.inner"));
+            assertEquals(Boolean.TRUE, r.correct(), g.name());
+            if (!g.name().equals("two-of-3")) {
+                assertEquals(Math.sqrt(2), r.complexity(), 1e-12, g.name());
+            }
+        }
+        // The page's default composition: the current (default) scenario of 6 variables with the
+        // first gadget: 12 variables, within every limit; it decides F∘g and its W+ W- is at most
+        // the product of the parts' (Rayleigh monotonicity, see CompositionBuilder).
+        String outer = new String(getClass().getResourceAsStream("/spanwright/scenarios/default.json").readAllBytes(),
+                java.nio.charset.StandardCharsets.UTF_8);
+        Built b = BuildRequest.run(spanwright.io.Json.parse("{\"kind\":\"compose\",\"outer\":" + outer
+                + ",\"inner\":\"" + Gadgets.ALL.get(0).name() + "\"}"));
+        assertEquals(12, b.scenario().variableCount());
+        AnalysisResult r = Analysis.run(b.scenario());
+        assertEquals(Boolean.TRUE, r.correct());
+        double product = ((Number) b.stats().get("productBound")).doubleValue();
+        assertTrue(r.maxResistance() * r.maxCapacitance() <= product * (1 + 1e-9), r.complexity() + " vs " + product);
+        ScenarioException e = assertThrows(ScenarioException.class, () -> BuildRequest.run(spanwright.io.Json.parse(
+                "{\"kind\":\"compose\",\"outer\":" + outer + ",\"inner\":\"three-of-5\"}")));
+        assertEquals("$.inner", e.path());
+        assertTrue(e.getMessage().contains("either-of-2, both-of-2, two-of-3"), e.getMessage());
+    }
 }

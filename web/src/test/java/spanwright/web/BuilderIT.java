@@ -172,22 +172,49 @@ class BuilderIT extends PageTestBase {
         assertTrue(page.$("builder-error").getText().contains("$.size"), page.$("builder-error").getText());
     }
 
+    /**
+     * The dialog's default composition (the current scenario as the outer one, the first built-in
+     * gadget as the inner one) builds, previews and analyses: 6 × 2 = 12 variables. Source of the
+     * expected numbers: JsonFacade.build with the very request the page sent, and JsonFacade.analyze
+     * of the JVM-built scenario. Every other built-in gadget builds the JVM's sizes too.
+     */
     @Test
     @SuppressWarnings("unchecked")
-    void aCompositionShowsTheEnginesAnswer() {
+    void theDefaultCompositionBuildsAndAnalyses() {
         openDialog();
         chooseKind("compose");
         page.waitFor("composition previewed", WAIT, () -> dialog("request").contains("\"compose\"") && !"running".equals(dialog("preview")));
         waitPreview();
-        // Source: JsonFacade.build on the JVM with the same request: built (same sizes) or refused (same message).
-        Map<String, Object> jvm = (Map<String, Object>) Json.parse(JsonFacade.build(dialog("request")));
-        if (Boolean.TRUE.equals(jvm.get("ok"))) {
+        assertEquals("built", dialog("preview"), page.$("builder-error").getText());
+        String request = dialog("request");
+        assertTrue(request.contains("\"inner\":\"either-of-2\""), request);
+        Map<String, Object> jvm = jvmBuild(request);
+        assertStatsShown(jvm);
+        assertEquals(12L, ((Number) ((Map<String, Object>) jvm.get("stats")).get("variables")).longValue());
+        page.waitFor("preview figures", WAIT, () -> "ready".equals(dialog("previewFigures")));
+        String builtText = Json.write(jvm.get("scenario"));
+        Map<String, Object> expected = WorkbenchIT.jvmResult(builtText);
+        WorkbenchIT.assertClose(((Number) expected.get("complexity")).doubleValue(), page.value("builder-bound"), "preview bound");
+        WorkbenchIT.assertClose(WorkbenchIT.side(expected, "positive", "maxResistance"), page.value("builder-wplus"), "preview W+");
+        WorkbenchIT.assertClose(WorkbenchIT.side(expected, "negative", "maxCapacitance"), page.value("builder-wminus"), "preview W-");
+
+        for (String gadget : new String[] {"both-of-2", "two-of-3"}) {
+            new Select(page.$("b-inner")).selectByValue("gadget:" + gadget);
+            page.waitFor("preview of " + gadget, WAIT, () -> dialog("request").contains("\"" + gadget + "\"") && !"running".equals(dialog("preview")));
+            waitPreview();
             assertEquals("built", dialog("preview"), page.$("builder-error").getText());
-            assertStatsShown(jvm);
-        } else {
-            assertEquals("error", dialog("preview"));
-            String message = String.valueOf(((Map<String, Object>) jvm.get("error")).get("message"));
-            assertTrue(page.$("builder-error").getText().contains(message), page.$("builder-error").getText());
+            assertStatsShown(jvmBuild(dialog("request")));
         }
+        new Select(page.$("b-inner")).selectByValue("gadget:either-of-2");
+        page.waitFor("preview of the default again", WAIT, () -> dialog("request").contains("either-of-2") && "built".equals(dialog("preview")));
+
+        // Opened, the main analysis gives the JVM's numbers.
+        int serial = page.serial();
+        page.$("builder-create").click();
+        page.waitForAnalysis(serial, WAIT);
+        assertEquals(Json.parse(builtText), Json.parse((String) page.js("return window.Spanwright.scenarioText();")));
+        assertEquals("yes", page.$("verdict").getAttribute("data-correct"));
+        WorkbenchIT.assertClose(((Number) expected.get("complexity")).doubleValue(), page.value("sum-bound"), "summary bound");
     }
+
 }
