@@ -86,6 +86,18 @@
     el.title = v === null || v === undefined ? "no inputs of this kind" : String(v);
   }
 
+  /** The engine's word on the bound: √(W₊W₋) is no bound for f when the graph does not decide f
+   *  (complexityIsBound false, complexityNote the why). The page only shows it. */
+  function showBoundStanding(result) {
+    const notBound = result.complexityIsBound === false;
+    const box = $("sum-bound").parentNode;
+    box.dataset.bound = notBound ? "no" : "yes";
+    const note = $("sum-bound-note");
+    note.hidden = !notBound;
+    note.textContent = notBound ? "√(W₊·W₋) is " + String(result.complexityNote || "not a bound for f: the graph does not decide f") + "." : "";
+    if (notBound) $("sum-bound").title = note.textContent;
+  }
+
   function showAnalysis(result, inputs, ms, total, wallMs, scenarioText) {
     $("error-box").hidden = true;
     document.body.classList.remove("stale");
@@ -98,6 +110,7 @@
     setFigure("sum-wplus", pos.count ? pos.maxResistance : null);
     setFigure("sum-wminus", neg.count ? neg.maxCapacitance : null);
     setFigure("sum-bound", result.complexity);
+    showBoundStanding(result);
     const counts = $("counts");
     counts.textContent = F.count(result.domainSize !== undefined ? result.domainSize : n) + " inputs in the domain: " +
       F.count(pos.count || 0) + " positive (s and t connected), " + F.count(neg.count || 0) + " negative.";

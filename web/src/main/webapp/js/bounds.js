@@ -119,9 +119,19 @@
       const why = row[0] === "adversary" ? advR : row[0] === "classical" ? clR : topR;
       setValue(row[1], src[row[1]], why[row[1]] || (row[4] && why[row[4]]));
     });
+    // The engine's standing of √(W₊W₋): when the graph does not decide f, the rows built on it
+    // (this graph's bound, the gaps, the speed-up) are marked; the lower bounds of f stand.
+    const notBound = r.complexityIsBound === false || r.reductionCorrect === false;
     const warn = $("bounds-warning");
-    warn.hidden = r.reductionCorrect !== false;
-    warn.textContent = "The graph does not decide f, so its bound says nothing about f: fix the reduction first.";
+    warn.hidden = !notBound;
+    warn.textContent = notBound ? "√(W₊·W₋) is " + String(r.complexityNote || "not a bound for f: the graph does not decide f") +
+      ". The rows of this graph (its bound, the gaps, the speed-up) say nothing about f; the lower bounds of f below still hold. Fix the reduction first." : "";
+    ["complexity", "optimalityGap", "speedup", "optimisedComplexity", "optimisedGap"].forEach(function (k) {
+      const td = $("bounds-" + k);
+      if (!td) return;
+      td.dataset.bound = notBound ? "no" : "yes";
+      if (notBound && td.dataset.value !== "") td.appendChild(el("div", "reason", "not a bound for f"));
+    });
     const w = $("bounds-witnesses");
     w.textContent = "";
     const ws = cl.witnesses || {};

@@ -172,6 +172,12 @@
     $("opt-status").dataset.iterations = String(r.iterations);
     $("opt-status").dataset.engine = (A.bridge() && A.bridge().engine) || "";
     if (answer.fallback) $("opt-status").textContent += " Note: " + answer.fallback + ".";
+    // The engine's standing of the number searched: not a bound for f when the graph does not decide f.
+    const notBound = !!before && before.complexityIsBound === false;
+    $("opt-warning").hidden = !notBound;
+    $("opt-warning").textContent = notBound ? "The graph does not decide f: the search lowered √(W₊·W₋) of this graph, which is " +
+      String(before.complexityNote || "not a bound for f") + ". Fix the reduction before reading these weights as an algorithm for f." : "";
+    $("opt-result").dataset.bound = notBound ? "no" : "yes";
     setNumber("opt-before-bound", before ? before.complexity : r.initialComplexity);
     // the engine's analysis: enumerated (positive.maxResistance) or by structure (maxResistance.value)
     setNumber("opt-before-wplus", before && before.positive ? before.positive.maxResistance

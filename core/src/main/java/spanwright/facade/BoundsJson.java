@@ -61,6 +61,13 @@ public final class BoundsJson {
         limits.put("classical", r.limits().classical());
         m.put("limits", limits);
         m.put("reductionCorrect", r.analysis().correct() == null ? Json.NULL : r.analysis().correct());
+        // as in the analysis (ResultJson): where the graph does not decide f, √(W₊W₋) and the
+        // comparisons built on it are no bound for f
+        boolean wrong = Boolean.FALSE.equals(r.analysis().correct());
+        m.put("complexityIsBound", !wrong);
+        if (wrong) {
+            m.put("complexityNote", spanwright.analysis.Analysis.notABound(Long.toString(r.analysis().counterexampleCount())));
+        }
         m.put("convention", ResultJson.CONVENTION);
         m.put("caution", Bounds.CAUTION);
         return m;

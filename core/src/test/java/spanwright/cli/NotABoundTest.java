@@ -51,6 +51,11 @@ class NotABoundTest {
         assertTrue(String.valueOf(m.get("complexityNote")).contains("2 input(s)"));
         String[] opt = run("optimize", f.toString(), "--starts", "1");
         assertTrue(opt[1].contains("warning: the weights were chosen for a number that is not a bound"), opt[1]);
+        // the bounds' JSON (the page's Bounds sheet) carries the same standing
+        Map<String, Object> b = (Map<String, Object>) ((Map<String, Object>) Json.parse(
+                spanwright.facade.JsonFacade.bounds(WRONG))).get("result");
+        assertEquals(Boolean.FALSE, b.get("complexityIsBound"));
+        assertTrue(String.valueOf(b.get("complexityNote")).contains("2 input(s)"), String.valueOf(b.get("complexityNote")));
         // a correct reduction carries no such mark
         Path right = dir.resolve("right.json");
         Files.writeString(right, WRONG.replace("a & b", "a | b"));

@@ -764,4 +764,53 @@ class WorkbenchIT extends PageTestBase {
             page.driver.manage().window().setSize(new org.openqa.selenium.Dimension(1280, 900));
         }
     }
+
+    /**
+     * A graph that does not decide f (the default scenario with the bypass left out of f): the
+     * Summary marks √(W₊·W₋) as not a bound for f with the engine's reason, the weight search warns
+     * in words, and the Bounds sheet marks this graph's rows. Source of the expected words and
+     * count: JsonFacade.analyze and JsonFacade.bounds on the JVM for the same text
+     * (complexityIsBound, complexityNote).
+     */
+    @Test
+    @SuppressWarnings("unchecked")
+    void aGraphThatDoesNotDecideFIsNotABound() throws IOException {
+        String text = scenarioFile("default.json").replace("\"(n1 & n2) | (s1 & s2) | (p & q)\"", "\"(n1 & n2) | (s1 & s2)\"");
+        assertTrue(text.contains("\"(n1 & n2) | (s1 & s2)\""), "the function was replaced");
+        Map<String, Object> expected = jvmResult(text);
+        assertEquals(Boolean.FALSE, expected.get("complexityIsBound"));
+        String note = String.valueOf(expected.get("complexityNote"));
+        int serial = page.serial();
+        page.js("window.SwPage.openScenario(JSON.parse(arguments[0]), {});", text);
+        page.waitForAnalysis(serial, WAIT);
+        assertEquals("no", page.$("verdict").getAttribute("data-correct"));
+        assertTrue(page.$("sum-bound-note").isDisplayed(), "the mark is shown");
+        assertTrue(page.$("sum-bound-note").getText().contains(note), page.$("sum-bound-note").getText());
+        assertEquals("no", page.js("return document.getElementById('sum-bound').parentNode.dataset.bound;"));
+        assertClose(((Number) expected.get("complexity")).doubleValue(), page.value("sum-bound"), "the number is still shown");
+
+        page.$("tab-weights").click();
+        page.waitFor("optimiser available", WAIT, () -> page.$("opt-run").isEnabled());
+        page.$("opt-run").click();
+        page.waitFor("search finished", WAIT, () -> "result".equals(page.js("return document.body.dataset.optimiser;")));
+        assertTrue(page.$("opt-warning").isDisplayed(), "the weight search warns");
+        assertTrue(page.$("opt-warning").getText().contains(note), page.$("opt-warning").getText());
+        page.$("opt-discard").click();
+
+        page.$("tab-bounds").click();
+        page.waitFor("bounds computed", WAIT, () -> "ready".equals(page.js("return document.body.dataset.bounds;")));
+        Map<String, Object> bounds = (Map<String, Object>) ((Map<String, Object>) Json.parse(JsonFacade.bounds(text))).get("result");
+        assertEquals(Boolean.FALSE, bounds.get("complexityIsBound"));
+        assertTrue(page.$("bounds-warning").isDisplayed());
+        assertTrue(page.$("bounds-warning").getText().contains(String.valueOf(bounds.get("complexityNote"))), page.$("bounds-warning").getText());
+        assertEquals("no", page.$("bounds-complexity").getAttribute("data-bound"));
+        page.$("tab-summary").click();
+
+        // A graph that decides f shows no mark.
+        serial = page.serial();
+        page.js("window.SwPage.openScenario(JSON.parse(arguments[0]), {});", scenarioFile("default.json"));
+        page.waitForAnalysis(serial, WAIT);
+        assertFalse(page.$("sum-bound-note").isDisplayed());
+        assertEquals("yes", page.js("return document.getElementById('sum-bound').parentNode.dataset.bound;"));
+    }
 }
