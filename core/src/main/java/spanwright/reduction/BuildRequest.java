@@ -102,9 +102,10 @@ public final class BuildRequest {
                     throw new ScenarioException("missing", "$.inner", "missing \"inner\" (the inner scenario, or the name"
                             + " of a built-in gadget: " + String.join(", ", Gadgets.names()) + ")");
                 }
+                Scenario out = scenario(outer, "$.outer"); // read first: its errors come first
                 Scenario in = inner instanceof String ? Gadgets.scenario((String) inner, "$.inner")
                         : scenario(inner, "$.inner");
-                return CompositionBuilder.compose(scenario(outer, "$.outer"), in);
+                return CompositionBuilder.compose(out, in);
             }
             default:
                 throw new ScenarioException("kind", "$.kind", "unknown build kind \"" + kind
