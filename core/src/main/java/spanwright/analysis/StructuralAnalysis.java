@@ -6,6 +6,7 @@ import java.util.List;
 import spanwright.electric.ElectricalNetwork;
 import spanwright.electric.Witness;
 import spanwright.expr.Expr;
+import spanwright.model.Deadline;
 import spanwright.model.Edge;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;
@@ -55,11 +56,26 @@ public final class StructuralAnalysis {
     /** Default node budget of the decision diagrams. */
     public static final long DEFAULT_DIAGRAM_NODES = 20_000_000L;
 
-    /** What the structural analysis found. Immutable. */
-    public record Result(Scenario scenario, String method, Side positive, Side negative, Reduction reduction) {
-        /** √(W₊W₋) when both sides are exact; NaN when a side has no input. */
+    /**
+     * What the structural analysis found. {@code cut} is null when no time budget stopped a pass;
+     * otherwise it names, in words, the passes the budget cut (their sides are certified intervals,
+     * the reduction "not checked") and how to get the rest. Immutable.
+     */
+    public record Result(Scenario scenario, String method, Side positive, Side negative, Reduction reduction,
+            String cut) {
+        /** A result no time budget cut. */
+        public Result(Scenario scenario, String method, Side positive, Side negative, Reduction reduction) {
+            this(scenario, method, positive, negative, reduction, null);
+        }
+
+        /** √(W₊W₋) when both sides are exact (the lower end of the interval otherwise); NaN when a side has no input. */
         public double complexity() {
             return Math.sqrt(positive.value() * negative.value());
+        }
+
+        /** The upper end of √(W₊W₋): equal to {@link #complexity} when exact. */
+        public double complexityUpper() {
+            return Math.sqrt(positive.upper() * negative.upper());
         }
 
         /** Is every number exact (no side ended on its budget)? */
@@ -79,6 +95,11 @@ public final class StructuralAnalysis {
     /** The reduction verdict: status "holds", "fails", "by construction" or "not checked". */
     public record Reduction(String status, BigInteger counterexamples, List<String> firstCounterexamples,
             String method) {
+        /** Did a time budget stop the check (status "not checked", and {@code method} says so)? */
+        public boolean timeCut() {
+            return status.equals("not checked") && method.startsWith(DiagramCheck.TIME_CUT);
+        }
+
         public Boolean correct() {
             switch (status) {
                 case "holds":
@@ -127,6 +148,15 @@ public final class StructuralAnalysis {
         return run(sc, DEFAULT_STATES, DEFAULT_NODES, DEFAULT_DIAGRAM_NODES, seconds);
     }
 
+    /**
+     * Runs with the default state and node budgets within the time budget {@code deadline} for the
+     * whole analysis (W₊, then W₋, then the reduction check: each pass may use a share of the time
+     * left, and time a pass leaves unused goes to the next); see {@link Result#cut}.
+     */
+    public static Result run(Scenario sc, Deadline deadline) {
+        return run(sc, DEFAULT_STATES, DEFAULT_NODES, DEFAULT_DIAGRAM_NODES, DEFAULT_SECONDS, true, deadline);
+    }
+
     /** Runs with the given budgets and {@link #DEFAULT_SECONDS}. */
     public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes) {
         return run(sc, maxStates, maxNodes, maxDiagramNodes, DEFAULT_SECONDS);
@@ -138,7 +168,7 @@ public final class StructuralAnalysis {
      * @throws ScenarioException {@code method} when the scenario has a promise (see {@link #refusal})
      */
     public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes, double seconds) {
-        return run(sc, maxStates, maxNodes, maxDiagramNodes, seconds, true);
+        return run(sc, maxStates, maxNodes, maxDiagramNodes, seconds, true, Deadline.none());
     }
 
     /**
@@ -149,16 +179,25 @@ public final class StructuralAnalysis {
      * @throws ScenarioException {@code method} when the scenario has a promise (see {@link #refusal})
      */
     public static Result worstCases(Scenario sc, long maxStates, long maxNodes) {
-        return worstCases(sc, maxStates, maxNodes, DEFAULT_SECONDS);
+        return worstCases(sc, maxStates, maxNodes, Deadline.none());
     }
 
     /** As {@link #worstCases(Scenario, long, long)} with {@code seconds} for each branch-and-bound side. */
     public static Result worstCases(Scenario sc, long maxStates, long maxNodes, double seconds) {
-        return run(sc, maxStates, maxNodes, 0, seconds, false);
+        return run(sc, maxStates, maxNodes, 0, seconds, false, Deadline.none());
+    }
+
+    /**
+     * {@link #worstCases(Scenario, long, long)} within the time budget {@code deadline} (W₊ may use
+     * half the time left, W₋ the rest); a side the budget cuts is a certified interval (see
+     * {@link Result#cut}).
+     */
+    public static Result worstCases(Scenario sc, long maxStates, long maxNodes, Deadline deadline) {
+        return run(sc, maxStates, maxNodes, 0, DEFAULT_SECONDS, false, deadline);
     }
 
     private static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes, double seconds,
-            boolean check) {
+            boolean check, Deadline deadline) {
         String refusal = refusal(sc);
         if (refusal != null) {
             throw new ScenarioException("method", "$.promise", refusal);
@@ -171,30 +210,32 @@ public final class StructuralAnalysis {
         for (Edge e : edges) {
             anyAlways |= e.when().isAlways() && !e.isSelfLoop();
         }
-        Side positive = null;
-        Side negative = null;
         String kind;
         if (host) {
             kind = "one positive literal per edge" + (anyAlways ? " (with always-present edges)" : "");
-            if (!anyAlways) {
-                positive = pathSide(sc, maxStates, maxNodes, seconds);
-            }
-            negative = bondSide(sc, maxStates, maxNodes, seconds);
         } else {
             kind = promised ? "a promise: every leaf tested against it" : "shared variables or negated literals";
         }
-        if (positive == null) {
-            positive = branchAndBound(sc, true, maxNodes, seconds, host ? "always-present edges make minimal positive inputs"
-                    + " more than paths: " : "");
-        }
-        if (negative == null) {
-            negative = branchAndBound(sc, false, maxNodes, seconds, "");
-        }
-        Reduction reduction = check ? reduction(sc, maxDiagramNodes)
+        List<String> cut = new ArrayList<>();
+        // W+ may use a share of the time left, W- a share of what then remains, the check the rest
+        Deadline first = deadline.share(check ? 1.0 / 3 : 1.0 / 2);
+        Side positive = host && !anyAlways ? pathSide(sc, maxStates, maxNodes, seconds, first, cut)
+                : branchAndBound(sc, true, maxNodes, seconds, host ? "always-present edges make minimal positive"
+                        + " inputs more than paths: " : "", first, cut);
+        Deadline second = deadline.share(check ? 1.0 / 2 : 1.0);
+        Side negative = host ? bondSide(sc, maxStates, maxNodes, seconds, second, cut)
+                : branchAndBound(sc, false, maxNodes, seconds, "", second, cut);
+        Reduction reduction = check ? reduction(sc, maxDiagramNodes, deadline)
                 : new Reduction("not checked", null, List.of(), "not asked for");
+        if (reduction.timeCut()) {
+            cut.add("the reduction check (decision diagrams)");
+        }
         String method = "structure (" + kind + "): " + sc.variableCount() + " variables, 2^" + sc.variableCount()
                 + " inputs not enumerated";
-        return new Result(sc, method, positive, negative, reduction);
+        String cutText = cut.isEmpty() ? null : "the time budget ran out in " + String.join("; ", cut)
+                + (positive.exact() && negative.exact() ? "" : ": W+ and W- are certified intervals [lower, upper]")
+                + "; give more time (analyze --seconds) for the rest";
+        return new Result(sc, method, positive, negative, reduction, cutText);
     }
 
     /** The graph without self-loops, as a {@link HostGraph}; {@code index} maps its edges back. */
@@ -227,7 +268,8 @@ public final class StructuralAnalysis {
         return new HostGraph(classes, u, v, weight, classOf[sc.s()], classOf[sc.t()]);
     }
 
-    private static Side pathSide(Scenario sc, long maxStates, long maxNodes, double seconds) {
+    private static Side pathSide(Scenario sc, long maxStates, long maxNodes, double seconds, Deadline deadline,
+            List<String> cut) {
         int n = sc.vertexCount();
         int[] identity = new int[n];
         for (int i = 0; i < n; i++) {
@@ -235,22 +277,30 @@ public final class StructuralAnalysis {
         }
         List<Integer> index = new ArrayList<>();
         HostGraph g = hostGraph(sc, identity, n, index);
+        // any simple path has at most |V| − 1 edges: the heaviest |V| − 1 weights bound W₊
+        double[] w = new double[g.edgeCount()];
+        for (int k = 0; k < w.length; k++) {
+            w[k] = g.weight(k);
+        }
+        java.util.Arrays.sort(w);
+        double cap = 0;
+        for (int k = w.length - 1; k >= 0 && k >= w.length - (g.vertexCount() - 1); k--) {
+            cap += w[k];
+        }
         Extreme path;
         try {
-            path = PathsAndBonds.heaviestPath(g, maxStates);
+            path = PathsAndBonds.heaviestPath(g, maxStates, PathsAndBonds.Method.AUTO, deadline);
         } catch (TooWideException e) {
-            // any simple path has at most |V| − 1 edges: the heaviest |V| − 1 weights bound W₊
-            double[] w = new double[g.edgeCount()];
-            for (int k = 0; k < w.length; k++) {
-                w[k] = g.weight(k);
-            }
-            java.util.Arrays.sort(w);
-            double cap = 0;
-            for (int k = w.length - 1; k >= 0 && k >= w.length - (g.vertexCount() - 1); k--) {
-                cap += w[k];
-            }
-            return capped(branchAndBound(sc, true, maxNodes, seconds, e.getMessage() + "; fell back to "), cap,
-                    "the |V| - 1 heaviest edges");
+            return capped(branchAndBound(sc, true, maxNodes, seconds, e.getMessage() + "; fell back to ", deadline,
+                    cut), cap, "the |V| - 1 heaviest edges");
+        } catch (Deadline.Expired e) {
+            cut.add("W+ (" + e.getMessage() + ")");
+            // a lower end: one simple s–t path (fewest edges, by breadth-first search) is a positive input
+            boolean[] some = shortestPath(g);
+            InputDetail worst = some == null ? null : detail(sc, assignment(sc, some, index, true));
+            return new Side(worst == null ? Double.NaN : worst.witness.value, Math.max(cap, worst == null ? 0 : worst.witness.value), false,
+                    worst, null, "time budget reached in the " + e.getMessage() + ": certified interval, lower end from"
+                    + " one simple s-t path (fewest edges), upper end from the |V| - 1 heaviest edges");
         }
         if (Double.isNaN(path.value())) {
             return new Side(Double.NaN, Double.NaN, true, null, BigInteger.ZERO, "heaviest simple s-t path: "
@@ -261,7 +311,48 @@ public final class StructuralAnalysis {
                 "heaviest simple s-t path (" + path.method() + ")");
     }
 
-    private static Side bondSide(Scenario sc, long maxStates, long maxNodes, double seconds) {
+    /** The edges of an s–t path with fewest edges in {@code g} (breadth-first search), or null when s and t are apart. */
+    private static boolean[] shortestPath(HostGraph g) {
+        int n = g.vertexCount();
+        List<List<Integer>> adj = new ArrayList<>();
+        for (int x = 0; x < n; x++) {
+            adj.add(new ArrayList<>());
+        }
+        for (int e = 0; e < g.edgeCount(); e++) {
+            adj.get(g.u(e)).add(e);
+            adj.get(g.v(e)).add(e);
+        }
+        int[] via = new int[n];
+        java.util.Arrays.fill(via, -2);
+        via[g.s()] = -1;
+        int[] queue = new int[n];
+        int head = 0;
+        int tail = 0;
+        queue[tail++] = g.s();
+        while (head < tail && via[g.t()] == -2) {
+            int a = queue[head++];
+            for (int e : adj.get(a)) {
+                int b = g.u(e) == a ? g.v(e) : g.u(e);
+                if (via[b] == -2) {
+                    via[b] = e;
+                    queue[tail++] = b;
+                }
+            }
+        }
+        if (via[g.t()] == -2) {
+            return null;
+        }
+        boolean[] chosen = new boolean[g.edgeCount()];
+        for (int x = g.t(); x != g.s();) {
+            int e = via[x];
+            chosen[e] = true;
+            x = g.u(e) == x ? g.v(e) : g.u(e);
+        }
+        return chosen;
+    }
+
+    private static Side bondSide(Scenario sc, long maxStates, long maxNodes, double seconds, Deadline deadline,
+            List<String> cut) {
         int n = sc.vertexCount();
         // contract always-present edges: they cannot be cut
         int[] parent = new int[n];
@@ -292,17 +383,25 @@ public final class StructuralAnalysis {
         }
         List<Integer> index = new ArrayList<>();
         HostGraph g = hostGraph(sc, classOf, classes, index);
+        // a bond is a set of switchable edges: all of them together bound W₋
+        double cap = 0;
+        for (int k = 0; k < g.edgeCount(); k++) {
+            cap += 1 / g.weight(k);
+        }
         Extreme bond;
         try {
-            bond = PathsAndBonds.heaviestBond(g, maxStates);
+            bond = PathsAndBonds.heaviestBond(g, maxStates, PathsAndBonds.Method.AUTO, deadline);
         } catch (TooWideException e) {
-            // a bond is a set of switchable edges: all of them together bound W₋
-            double cap = 0;
-            for (int k = 0; k < g.edgeCount(); k++) {
-                cap += 1 / g.weight(k);
-            }
-            return capped(branchAndBound(sc, false, maxNodes, seconds, e.getMessage() + "; fell back to "), cap,
-                    "the sum of 1/w over all switchable edges");
+            return capped(branchAndBound(sc, false, maxNodes, seconds, e.getMessage() + "; fell back to ", deadline,
+                    cut), cap, "the sum of 1/w over all switchable edges");
+        } catch (Deadline.Expired e) {
+            cut.add("W- (" + e.getMessage() + ")");
+            // a lower end: every switchable edge absent is a negative input (the always-present
+            // edges do not join s and t, checked above)
+            InputDetail worst = detail(sc, new boolean[sc.variableCount()]);
+            return new Side(worst.witness.value, Math.max(cap, worst.witness.value), false, worst, null,
+                    "time budget reached in the " + e.getMessage() + ": certified interval, lower end from the input"
+                    + " with every switchable edge absent, upper end from the sum of 1/w over all switchable edges");
         }
         InputDetail worst = detail(sc, assignment(sc, bond.edges(), index, false));
         return new Side(worst.witness.value, worst.witness.value, true, worst, bond.count(),
@@ -330,7 +429,8 @@ public final class StructuralAnalysis {
         if (side.exact() || !(cap < side.upper())) {
             return side;
         }
-        return new Side(side.value(), Math.max(cap, side.value()), side.exact(), side.worst(), side.extremeInputs(),
+        double upper = Double.isNaN(side.value()) ? cap : Math.max(cap, side.value());
+        return new Side(side.value(), upper, side.exact(), side.worst(), side.extremeInputs(),
                 side.method() + "; upper end from " + what);
     }
 
@@ -342,17 +442,35 @@ public final class StructuralAnalysis {
         return x;
     }
 
-    private static Side branchAndBound(Scenario sc, boolean positiveSide, long maxNodes, double seconds, String why) {
+    private static Side branchAndBound(Scenario sc, boolean positiveSide, long maxNodes, double seconds, String why,
+            Deadline deadline, List<String> cut) {
         EdgeArrays a = EdgeArrays.of(sc);
         BranchAndBound bb = new BranchAndBound(sc.vertexCount(), sc.s(), sc.t(), a.u(), a.v(), a.weight(),
                 sc.variableCount(), a.variable(), a.positive(), branchingOrder(sc), maxNodes, promiseTest(sc));
-        bb.setDeadline(System.nanoTime() + (long) (seconds * 1e9));
+        bb.setDeadline(System.nanoTime() + (long) Math.min(seconds * 1e9, 9e18));
+        bb.setDeadline(deadline);
         BranchAndBound.Outcome o = positiveSide ? bb.maxResistance() : bb.maxCapacitance();
         InputDetail worst = o.bestAssignment() == null ? null : detail(sc, o.bestAssignment());
         double value = worst == null ? Double.NaN : worst.witness.value;
+        boolean timeCut = !o.exact() && bb.stoppedByDeadline();
+        if (timeCut) {
+            cut.add((positiveSide ? "W+" : "W-") + " (branch and bound, after " + o.nodes() + " nodes)");
+        }
         String how = why + "branch and bound with Rayleigh bounds, " + o.nodes() + " nodes"
-                + (o.exact() ? ", exact" : ", node or time budget reached: certified interval");
-        return new Side(value, o.exact() ? value : o.upper(), o.exact(), worst, null, how);
+                + (o.exact() ? ", exact" : timeCut ? ", time budget reached: certified interval"
+                        : ", node or time budget reached: certified interval");
+        Side side = new Side(value, o.exact() ? value : o.upper(), o.exact(), worst, null, how);
+        // derived caps, valid for every input: a positive input holds an s–t path of present edges,
+        // and the unit flow along it has energy Σ_path w ≤ Σ_all w (Thomson's principle); on a
+        // negative input the potential 1 on s's component and 0 elsewhere is admissible, with
+        // energy Σ over absent crossing edges of 1/w ≤ Σ over switchable edges of 1/w
+        double all = 0;
+        for (Edge e : sc.edges()) {
+            if (!e.isSelfLoop() && (positiveSide || !e.when().isAlways())) {
+                all += positiveSide ? e.weight() : 1 / e.weight();
+            }
+        }
+        return capped(side, all, positiveSide ? "the sum of all weights" : "the sum of 1/w over all switchable edges");
     }
 
     /** The promise as a test of full assignments (at most 63 variables), or null for the whole cube. */
@@ -418,6 +536,14 @@ public final class StructuralAnalysis {
 
     /** The reduction verdict alone (see the class comment). */
     public static Reduction reduction(Scenario sc, long maxDiagramNodes) {
+        return reduction(sc, maxDiagramNodes, Deadline.none());
+    }
+
+    /**
+     * The reduction verdict within a time budget: "not checked", saying that the budget ran out
+     * ({@link Reduction#timeCut}), when it does.
+     */
+    public static Reduction reduction(Scenario sc, long maxDiagramNodes, Deadline deadline) {
         if (sc.function() == null) {
             return new Reduction("not checked", null, List.of(), "no function given");
         }
@@ -425,7 +551,7 @@ public final class StructuralAnalysis {
             return new Reduction("by construction", BigInteger.ZERO, List.of(),
                     "the function is s-t connectivity of this graph");
         }
-        DiagramCheck.Result r = DiagramCheck.check(sc, maxDiagramNodes);
+        DiagramCheck.Result r = DiagramCheck.check(sc, maxDiagramNodes, deadline);
         if (r.status() != DiagramCheck.Status.CHECKED) {
             return new Reduction("not checked", null, List.of(), r.message());
         }

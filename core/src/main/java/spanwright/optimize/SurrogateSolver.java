@@ -3,6 +3,7 @@ package spanwright.optimize;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
 import org.ejml.interfaces.linsol.LinearSolverDense;
+import spanwright.model.Deadline;
 
 /**
  * Minimises the majorising surrogate of log(W₊·W₋) over log-weights u of the free groups:

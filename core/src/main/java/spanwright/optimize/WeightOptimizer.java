@@ -9,6 +9,7 @@ import spanwright.analysis.AnalysisResult;
 import spanwright.analysis.CandidateInputs;
 import spanwright.analysis.Summary;
 import spanwright.electric.Witness;
+import spanwright.model.Deadline;
 import spanwright.model.Edge;
 import spanwright.model.Scenario;
 import spanwright.model.SeededRandom;

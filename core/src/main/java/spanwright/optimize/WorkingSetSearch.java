@@ -8,6 +8,7 @@ import spanwright.analysis.InputDetail;
 import spanwright.analysis.StructuralAnalysis;
 import spanwright.electric.ElectricalNetwork;
 import spanwright.electric.Witness;
+import spanwright.model.Deadline;
 import spanwright.model.Scenario;
 import spanwright.model.SeededRandom;
 

@@ -1,6 +1,7 @@
 package spanwright.structure;
 
 import spanwright.electric.ElectricalNetwork;
+import spanwright.model.Deadline;
 
 /**
  * W₊ or W₋ of a general instance (shared variables, negated literals, always-present edges) by
@@ -46,6 +47,7 @@ public final class BranchAndBound {
     private final boolean[] inQ;
     private final long maxNodes;
     private long deadlineNanos = Long.MAX_VALUE;
+    private Deadline budget = Deadline.none();
     private final int[] polarity; // bit 1: occurs positive, bit 2: occurs negated
 
     private final java.util.function.Predicate<boolean[]> domain;
@@ -57,6 +59,7 @@ public final class BranchAndBound {
     private double openUpper;
     private long nodes;
     private boolean outOfBudget;
+    private boolean byDeadline;
 
     /**
      * @param vertexCount vertices 0..vertexCount−1
@@ -97,6 +100,21 @@ public final class BranchAndBound {
         this.deadlineNanos = deadlineNanos;
     }
 
+    /**
+     * Stops the search when {@code deadline} has passed, asked once per node (one step: a
+     * connectivity test and at most one network evaluation), as if the node budget were spent; the
+     * result is then the certified interval. Used together with {@link #setDeadline(long)}: the
+     * earlier of the two ends the search.
+     */
+    public void setDeadline(Deadline deadline) {
+        this.budget = deadline;
+    }
+
+    /** Did the last search stop on a time limit (rather than finish or spend its nodes)? */
+    public boolean stoppedByDeadline() {
+        return byDeadline;
+    }
+
     /** W₊: the largest effective resistance over inputs where s and t are connected. */
     public Outcome maxResistance() {
         return run(true);
@@ -114,6 +132,7 @@ public final class BranchAndBound {
         openUpper = Double.NEGATIVE_INFINITY;
         nodes = 0;
         outOfBudget = false;
+        byDeadline = false;
         java.util.Arrays.fill(assignment, -1);
         search(0);
         double upper = Double.isNaN(best) ? openUpper : Math.max(best, openUpper);
@@ -177,8 +196,9 @@ public final class BranchAndBound {
         if (!Double.isNaN(best) && bound <= best * (1 + 1e-12)) {
             return;
         }
-        if (nodes >= maxNodes || (nodes & 63) == 0 && System.nanoTime() >= deadlineNanos) {
+        if (nodes >= maxNodes || (nodes & 63) == 0 && System.nanoTime() >= deadlineNanos || budget.passed()) {
             outOfBudget = true;
+            byDeadline = nodes < maxNodes;
             openUpper = Math.max(openUpper, bound);
             return;
         }

@@ -6,6 +6,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import spanwright.expr.Expr;
+import spanwright.model.Deadline;
 
 /**
  * Manager of reduced ordered binary decision diagrams (ROBDDs; Bryant, "Graph-based algorithms for
@@ -67,6 +68,8 @@ public final class DecisionDiagrams {
     private int[] stamp = new int[0];
     private int stampValue;
     private int[] stack = new int[64];
+    private Deadline deadline = Deadline.none();
+    private long work;
 
     /**
      * An empty manager over {@code variableCount} variables.
@@ -95,6 +98,15 @@ public final class DecisionDiagrams {
         hi[TRUE] = TRUE;
         size = 2;
         allocateCache(MIN_CACHE);
+    }
+
+    /**
+     * A time budget for every later operation, checked once per 4096 node requests (each apply
+     * step makes one) and every 256 frontier states of {@link #connectivity}; when it runs out the
+     * operation throws {@link Deadline.Expired} (the handles made before stay valid).
+     */
+    public void setDeadline(Deadline deadline) {
+        this.deadline = deadline;
     }
 
     /** Number of variables n. */
@@ -177,6 +189,9 @@ public final class DecisionDiagrams {
      * only variables after {@code v}.
      */
     private int mk(int v, int l, int h) {
+        if ((++work & 4095) == 0) {
+            deadline.check("building a decision diagram (" + size + " nodes so far)");
+        }
         if (l == h) {
             return l;
         }
@@ -645,6 +660,10 @@ public final class DecisionDiagrams {
                 int[] los = new int[level.size()];
                 int[] his = new int[level.size()];
                 for (int i = 0; i < level.size(); i++) {
+                    if ((i & 255) == 0) {
+                        deadline.check("the frontier search for the connectivity diagram, variable group " + g
+                                + " of " + (groups - 1));
+                    }
                     String st = level.get(i);
                     los[i] = child(transition(g, st, false, false), nextStates, nextLevel);
                     his[i] = child(transition(g, st, true, false), nextStates, nextLevel);

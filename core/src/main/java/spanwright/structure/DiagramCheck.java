@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.function.ToIntFunction;
 import spanwright.expr.Expr;
+import spanwright.model.Deadline;
 import spanwright.model.Promise;
 import spanwright.model.Scenario;
 import spanwright.model.ScenarioException;
@@ -29,6 +30,8 @@ import spanwright.model.ScenarioException;
 public final class DiagramCheck {
     /** A default node budget: a few hundred megabytes of node table at most. */
     public static final long DEFAULT_NODE_BUDGET = 20_000_000L;
+    /** How the message of a check the time budget stopped begins (status {@link Status#OUT_OF_TIME}). */
+    public static final String TIME_CUT = "the time budget ran out";
     /** How many counterexamples are listed. */
     public static final int LISTED = 10;
 
@@ -45,7 +48,9 @@ public final class DiagramCheck {
         /** the promise allows no input */
         EMPTY_DOMAIN,
         /** a diagram outgrew the node budget */
-        TOO_LARGE
+        TOO_LARGE,
+        /** the time budget ran out while the diagrams were built or compared */
+        OUT_OF_TIME
     }
 
     /**
@@ -83,6 +88,14 @@ public final class DiagramCheck {
      * @param maxNodes node budget of the one manager that holds all three diagrams
      */
     public static Result check(Scenario sc, long maxNodes) {
+        return check(sc, maxNodes, Deadline.none());
+    }
+
+    /**
+     * {@link #check(Scenario, long)} within a time budget (see {@link DecisionDiagrams#setDeadline});
+     * when it runs out the result has status {@link Status#OUT_OF_TIME} and says so.
+     */
+    public static Result check(Scenario sc, long maxNodes, Deadline deadline) {
         if (sc.function() == null) {
             return refused(Status.NO_FUNCTION, "the scenario gives no target function, so there is nothing "
                     + "to check the graph against; add a function");
@@ -101,9 +114,9 @@ public final class DiagramCheck {
                 positive[i] = c.positive(i);
             }
             return run(sc, maxNodes, dd -> dd.connectivity(c.vertexCount(), c.s(), c.t(), u, v, var, positive),
-                    "f as the connectivity of its host graph");
+                    "f as the connectivity of its host graph", deadline);
         }
-        return run(sc, maxNodes, dd -> dd.fromExpr(sc.function()), "f from its expression");
+        return run(sc, maxNodes, dd -> dd.fromExpr(sc.function()), "f from its expression", deadline);
     }
 
     /**
@@ -120,7 +133,8 @@ public final class DiagramCheck {
                     + "variables " + show(host.variables()) + ", the scenario has " + show(sc.variables())
                     + "; both must list the same variables in the same order");
         }
-        return run(sc, maxNodes, dd -> connectivity(dd, host), "f as the connectivity of its host graph");
+        return run(sc, maxNodes, dd -> connectivity(dd, host), "f as the connectivity of its host graph",
+                Deadline.none());
     }
 
     /** The s–t connectivity diagram of {@code sc}'s graph in the manager {@code dd}. */
@@ -129,7 +143,8 @@ public final class DiagramCheck {
         return dd.connectivity(sc.vertexCount(), sc.s(), sc.t(), a.u(), a.v(), a.variable(), a.positive());
     }
 
-    private static Result run(Scenario sc, long maxNodes, ToIntFunction<DecisionDiagrams> function, String how) {
+    private static Result run(Scenario sc, long maxNodes, ToIntFunction<DecisionDiagrams> function, String how,
+            Deadline deadline) {
         Promise p = sc.promise();
         if (p.kind() == Promise.Kind.INPUTS) {
             return refused(Status.UNSUPPORTED_PROMISE, "the promise lists its " + p.inputs().length
@@ -142,6 +157,7 @@ public final class DiagramCheck {
                         ? ", promise by Hamming-weight counting" : ", promise from its expression")
                 + "; no enumeration";
         DecisionDiagrams dd = new DecisionDiagrams(n, maxNodes);
+        dd.setDeadline(deadline);
         long graphNodes = 0;
         long functionNodes = 0;
         long promiseNodes = 0;
@@ -174,6 +190,10 @@ public final class DiagramCheck {
         } catch (TooLargeDiagramException e) {
             return new Result(false, null, List.of(), graphNodes, functionNodes, promiseNodes, method,
                     Status.TOO_LARGE, e.getMessage(), null);
+        } catch (Deadline.Expired e) {
+            return new Result(false, null, List.of(), graphNodes, functionNodes, promiseNodes, method,
+                    Status.OUT_OF_TIME, TIME_CUT + " while " + e.getMessage() + "; the reduction was"
+                    + " not checked (give more time, e.g. analyze --seconds)", null);
         }
     }
 

@@ -3,6 +3,7 @@ package spanwright.structure;
 import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
+import spanwright.model.Deadline;
 
 /**
  * Frontier-based search over the edges of a {@link Component} in a {@link FrontierPlan} order:
@@ -38,6 +39,7 @@ final class FrontierSearch {
 
     private final Component c;
     private final FrontierPlan plan;
+    private final Deadline deadline;
     private final long maxStates;
     private final int bits;
     private final int perWord;
@@ -61,6 +63,15 @@ final class FrontierSearch {
     private final int newLabel;
 
     FrontierSearch(Component c, FrontierPlan plan, long maxStates, boolean bond) {
+        this(c, plan, maxStates, bond, Deadline.none());
+    }
+
+    /**
+     * With a time budget, checked before each edge's level and every 1024 states inside it (one
+     * step: at most 1024 state transitions); {@link Deadline.Expired} when it runs out.
+     */
+    FrontierSearch(Component c, FrontierPlan plan, long maxStates, boolean bond, Deadline deadline) {
+        this.deadline = deadline;
         this.c = c;
         this.plan = plan;
         this.maxStates = Math.min(maxStates, MAX_BUDGET);
@@ -128,6 +139,11 @@ final class FrontierSearch {
         }
     }
 
+    private void checkTime(int level, int state, int states) {
+        deadline.check("frontier search for the heaviest " + (bond ? "bond" : "path") + ", at edge " + (level + 1)
+                + " of " + plan.m + " (state " + state + " of " + states + ")");
+    }
+
     private String describe(String extra) {
         return "frontier search over " + plan.m + " edges (" + plan.ordering + "), widest frontier "
                 + plan.width + ", " + stored + " states in all, largest level " + peak + extra;
@@ -164,6 +180,9 @@ final class FrontierSearch {
             int pv = plan.pv[i];
             next.clear();
             for (int k = 0; k < cur.size; k++) {
+                if ((k & 1023) == 0) {
+                    checkTime(i, k, cur.size);
+                }
                 decode(cur, k, p, a);
                 for (int x = p; x < len; x++) {
                     a[x] = 0;
@@ -303,6 +322,9 @@ final class FrontierSearch {
             int toV = inV && v != c.s ? 1 : 0;
             next.clear();
             for (int k = 0; k < cur.size; k++) {
+                if ((k & 1023) == 0) {
+                    checkTime(i, k, cur.size);
+                }
                 decode(cur, k, p, a);
                 double val = cur.value[k];
                 for (int su = fromU; su <= toU; su++) {

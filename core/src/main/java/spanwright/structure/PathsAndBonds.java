@@ -1,6 +1,7 @@
 package spanwright.structure;
 
 import java.math.BigInteger;
+import spanwright.model.Deadline;
 
 /**
  * Exact W₊ and W₋ of a host-graph instance (one variable per edge, every condition a positive
@@ -52,24 +53,44 @@ public final class PathsAndBonds {
 
     /** {@link #heaviestPath(HostGraph, long)} by the given method. */
     public static Extreme heaviestPath(HostGraph g, long maxStates, Method method) {
+        return heaviestPath(g, maxStates, method, Deadline.none());
+    }
+
+    /**
+     * {@link #heaviestPath(HostGraph, long)} by the given method within a time budget, checked at
+     * least every 1024 frontier states or 256 vertex subsets.
+     *
+     * @throws Deadline.Expired when the budget runs out first (nothing partial is certain)
+     */
+    public static Extreme heaviestPath(HostGraph g, long maxStates, Method method, Deadline deadline) {
         Component c = new Component(g);
         if (!c.joined) {
             return new Extreme(Double.NaN, null, BigInteger.ZERO, "s and t are not joined in the host graph: no path");
         }
-        return run(c, maxStates, method, false);
+        return run(c, maxStates, method, false, deadline);
     }
 
     /** {@link #heaviestBond(HostGraph, long)} by the given method. */
     public static Extreme heaviestBond(HostGraph g, long maxStates, Method method) {
+        return heaviestBond(g, maxStates, method, Deadline.none());
+    }
+
+    /**
+     * {@link #heaviestBond(HostGraph, long)} by the given method within a time budget (see
+     * {@link #heaviestPath(HostGraph, long, Method, Deadline)}).
+     *
+     * @throws Deadline.Expired when the budget runs out first
+     */
+    public static Extreme heaviestBond(HostGraph g, long maxStates, Method method, Deadline deadline) {
         Component c = new Component(g);
         if (!c.joined) {
             return new Extreme(0.0, new boolean[g.edgeCount()], BigInteger.ONE,
                     "s and t are not joined in the host graph: the empty set is the only bond");
         }
-        return run(c, maxStates, method, true);
+        return run(c, maxStates, method, true, deadline);
     }
 
-    private static Extreme run(Component c, long maxStates, Method method, boolean bond) {
+    private static Extreme run(Component c, long maxStates, Method method, boolean bond, Deadline deadline) {
         if (maxStates < 1) {
             throw new IllegalArgumentException("maxStates must be positive, got " + maxStates);
         }
@@ -77,35 +98,35 @@ public final class PathsAndBonds {
         boolean subsetFits = c.n <= SubsetDp.MAX_VERTICES && subsetStates <= maxStates
                 && subsetStates < Integer.MAX_VALUE - 8;
         if (method == Method.SUBSETS) {
-            return subsets(c, maxStates, bond);
+            return subsets(c, maxStates, bond, deadline);
         }
         FrontierPlan plan = new FrontierPlan(c);
         if (method == Method.FRONTIER) {
-            return frontier(c, plan, maxStates, bond);
+            return frontier(c, plan, maxStates, bond, deadline);
         }
         double subsetWork = subsetFits ? (double) subsetStates * (bond ? c.n : c.n - 2) : Double.POSITIVE_INFINITY;
         // crude estimate of frontier states per level: 3^w (paths), 4^w (bonds, a side and a component each)
         double perLevel = Math.pow(bond ? 4 : 3, plan.width);
         double frontierWork = perLevel * plan.m * Math.max(1, plan.width);
         if (subsetFits && subsetWork <= frontierWork) {
-            return subsets(c, maxStates, bond);
+            return subsets(c, maxStates, bond, deadline);
         }
         try {
-            return frontier(c, plan, maxStates, bond);
+            return frontier(c, plan, maxStates, bond, deadline);
         } catch (TooWideException e) {
             if (subsetFits) {
-                return subsets(c, maxStates, bond);
+                return subsets(c, maxStates, bond, deadline);
             }
             throw e;
         }
     }
 
-    private static Extreme frontier(Component c, FrontierPlan plan, long maxStates, boolean bond) {
-        FrontierSearch search = new FrontierSearch(c, plan, maxStates, bond);
+    private static Extreme frontier(Component c, FrontierPlan plan, long maxStates, boolean bond, Deadline deadline) {
+        FrontierSearch search = new FrontierSearch(c, plan, maxStates, bond, deadline);
         return bond ? search.heaviestBond() : search.heaviestPath();
     }
 
-    private static Extreme subsets(Component c, long maxStates, boolean bond) {
-        return bond ? SubsetDp.heaviestBond(c, maxStates) : SubsetDp.heaviestPath(c, maxStates);
+    private static Extreme subsets(Component c, long maxStates, boolean bond, Deadline deadline) {
+        return bond ? SubsetDp.heaviestBond(c, maxStates, deadline) : SubsetDp.heaviestPath(c, maxStates, deadline);
     }
 }

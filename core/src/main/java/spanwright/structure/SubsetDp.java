@@ -1,6 +1,7 @@
 package spanwright.structure;
 
 import java.math.BigInteger;
+import spanwright.model.Deadline;
 
 /**
  * Dynamic programming over vertex subsets, for dense graphs with few vertices (K_n up to about
@@ -49,6 +50,11 @@ final class SubsetDp {
     }
 
     static Extreme heaviestPath(Component c, long maxStates) {
+        return heaviestPath(c, maxStates, Deadline.none());
+    }
+
+    /** With a time budget, checked every 256 vertex subsets; throws {@link Deadline.Expired} when it runs out. */
+    static Extreme heaviestPath(Component c, long maxStates, Deadline deadline) {
         int n = c.n;
         long states = pathStates(n);
         if (states > maxStates || states > Integer.MAX_VALUE - 8) {
@@ -108,6 +114,9 @@ final class SubsetDp {
         }
         int full = 1 << k;
         for (int mask = 1; mask < full; mask++) {
+            if ((mask & 255) == 0) {
+                deadline.check("vertex-subset dynamic programming for the heaviest path, subset " + mask + " of " + full);
+            }
             for (int j = 0; j < k; j++) {
                 int st = mask * k + j;
                 if ((mask & (1 << j)) == 0 || count.isZero(st)) {
@@ -169,6 +178,11 @@ final class SubsetDp {
     }
 
     static Extreme heaviestBond(Component c, long maxStates) {
+        return heaviestBond(c, maxStates, Deadline.none());
+    }
+
+    /** With a time budget, checked every 4096 sides; throws {@link Deadline.Expired} when it runs out. */
+    static Extreme heaviestBond(Component c, long maxStates, Deadline deadline) {
         int n = c.n;
         long states = bondStates(n);
         if (states > maxStates || n > MAX_VERTICES) {
@@ -196,6 +210,9 @@ final class SubsetDp {
         double best = Double.NEGATIVE_INFINITY;
         int bestSide = 0;
         for (long sub = 0; sub < states; sub++) {
+            if ((sub & 4095) == 0 && sub > 0) {
+                deadline.check("vertex-subset enumeration for the heaviest bond, side " + sub + " of " + states);
+            }
             int sideS = 1 << c.s;
             for (int j = 0; j < k; j++) {
                 if ((sub & (1L << j)) != 0) {

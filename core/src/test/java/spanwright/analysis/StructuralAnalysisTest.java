@@ -303,4 +303,65 @@ class StructuralAnalysisTest {
             assertTrue(Double.isFinite(sides[k].upper()), "the derived caps keep the upper end finite");
         }
     }
+
+    /** The interval of each side holds the enumerated truth (independent computation: {@link Analysis#run}). */
+    private static void inside(StructuralAnalysis.Result r, AnalysisResult e, String name) {
+        double[] truth = {e.maxResistance(), e.maxCapacitance()};
+        StructuralAnalysis.Side[] sides = {r.positive(), r.negative()};
+        for (int k = 0; k < 2; k++) {
+            if (!Double.isNaN(sides[k].value())) {
+                assertTrue(sides[k].value() <= truth[k] * (1 + 1e-12), name + ": lower end " + sides[k].value()
+                        + " above " + truth[k]);
+            }
+            assertTrue(sides[k].upper() >= truth[k] * (1 - 1e-12), name + ": upper end " + sides[k].upper()
+                    + " below " + truth[k]);
+        }
+    }
+
+    @Test
+    void anExpiredBudgetCutsEveryPassAndSaysSo() {
+        // 4×4 grid (24 variables) with the function given as the same grid listed in reverse order,
+        // so that the reduction check must build diagrams; a budget that has already run out stops
+        // the frontier searches and the diagrams at their first check. Enumeration (independent
+        // computation) lies inside each side's interval; the lower ends come with witnesses.
+        Scenario grid = HostGraphBuilder.family("grid", new int[] {4, 4}, null, null, 0, -1).scenario();
+        List<Edge> reversed = new ArrayList<>(grid.edges());
+        java.util.Collections.reverse(reversed);
+        Scenario sc = withListedHost(grid, reversed);
+        StructuralAnalysis.Result r = StructuralAnalysis.run(sc, spanwright.model.Deadline.afterChecks(0));
+        assertFalse(r.positive().exact());
+        assertFalse(r.negative().exact());
+        assertTrue(r.reduction().timeCut(), r.reduction().method());
+        assertEquals(null, r.reduction().correct(), "a check that did not run says neither yes nor no");
+        assertNotNull(r.cut());
+        assertTrue(r.cut().contains("W+") && r.cut().contains("W-") && r.cut().contains("reduction"), r.cut());
+        assertTrue(r.positive().method().contains("time budget"), r.positive().method());
+        certificate(sc, r.positive(), true, "cut 4x4 lower end");
+        certificate(sc, r.negative(), false, "cut 4x4 lower end");
+        inside(r, Analysis.run(sc), "cut 4x4");
+        assertTrue(Double.isFinite(r.complexityUpper()) && r.complexityUpper() >= r.complexity());
+        // with no budget the same scenario is exact and nothing is cut
+        StructuralAnalysis.Result full = StructuralAnalysis.run(sc, spanwright.model.Deadline.none());
+        assertTrue(full.exact());
+        assertEquals(null, full.cut());
+        assertEquals("holds", full.reduction().status());
+    }
+
+    @Test
+    void aBudgetThatRunsOutInsideTheSearchGivesACertifiedInterval() {
+        // budgets of a few checks end the frontier search, the subset dynamic programme or branch
+        // and bound part-way: every side is exact or an interval around the enumerated truth
+        Scenario grid = HostGraphBuilder.family("grid", new int[] {4, 4}, null, null, 0, -1).scenario();
+        Random rnd = new Random(7L);
+        Scenario general = RandomScenarios.generate(rnd, 12, 9, 20, 0.1, 0.4, 0.2, 5.0);
+        for (Scenario sc : List.of(grid, general)) {
+            AnalysisResult e = Analysis.run(sc);
+            for (long checks : new long[] {1, 2, 5, 20}) {
+                StructuralAnalysis.Result r = StructuralAnalysis.worstCases(sc, StructuralAnalysis.DEFAULT_STATES,
+                        StructuralAnalysis.DEFAULT_NODES, spanwright.model.Deadline.afterChecks(checks));
+                inside(r, e, sc.title() + " after " + checks + " checks");
+                assertEquals(r.exact(), r.cut() == null, r.cut() + " / exact " + r.exact());
+            }
+        }
+    }
 }

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Random;
 import org.junit.jupiter.api.Test;
+import spanwright.model.Deadline;
 import spanwright.model.RandomScenarios;
 import spanwright.model.Scenario;
 
