@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.function.LongPredicate;
 import spanwright.domain.InputDomain;
 import spanwright.expr.Expr;
+import spanwright.model.Deadline;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
 import spanwright.model.Scenario;
@@ -145,6 +146,16 @@ public final class CandidateInputs {
      * Cost O(|D| · (|E| α + n log |D|)); memory one byte per input.
      */
     public static CandidateInputs undominated(Scenario sc) {
+        return undominated(sc, Deadline.none());
+    }
+
+    /**
+     * {@link #undominated(Scenario)} within a time budget, checked once per input of the domain
+     * (one step: a connectivity test and f).
+     *
+     * @throws Deadline.Expired naming how many inputs were tested, when the budget runs out first
+     */
+    public static CandidateInputs undominated(Scenario sc, Deadline deadline) {
         InputDomain domain = InputDomain.of(sc);
         if (domain.size() > Integer.MAX_VALUE - 16) {
             throw new IllegalStateException("domain too large to store");
@@ -157,6 +168,10 @@ public final class CandidateInputs {
         double ceCount = 0;
         List<Long> ce = new ArrayList<>();
         for (int k = 0; k < size; k++) {
+            if (deadline.passed()) {
+                throw new Deadline.Expired("listing the inputs that can be worst (" + k + " of " + size
+                        + " inputs tested)");
+            }
             long x = domain.get(k);
             conn[k] = ev.connected(x);
             if (conn[k]) {

@@ -4,7 +4,6 @@ import java.io.PrintStream;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import spanwright.analysis.Analysis;
 import spanwright.io.Json;
 import spanwright.facade.JsonFacade;
 import spanwright.io.NumberText;
@@ -93,8 +92,7 @@ final class OptimizeCommand {
                         + ", sqrt(W+ W-) = " + NumberText.sig(complexity, 6));
                 return true;
             });
-            progress.phase("checking the reduction for the new weights");
-            standing = Analysis.standing(r.scenario);
+            standing = r.standing; // from the optimiser's own check: no second, unbudgeted pass
         }
         if (output != null) {
             OutputFiles.write("optimize", output, ResultJson.withWeights(text, r.scenario));
@@ -119,6 +117,10 @@ final class OptimizeCommand {
         return args.get(i);
     }
 
+    private static String interval(double value, double upper, boolean exact) {
+        return exact ? NumberText.sig(value, 10) : "in [" + NumberText.sig(value, 10) + ", " + NumberText.sig(upper, 10) + "]";
+    }
+
     private static String inputText(long mask, spanwright.analysis.InputDetail cert, int n) {
         return mask >= 0 ? Inputs.format(mask, n) : cert == null ? "—" : cert.input;
     }
@@ -138,12 +140,16 @@ final class OptimizeCommand {
             sb.append("  engine      ").append(r.engine).append('\n');
         }
         sb.append("  bound       sqrt(W+ W-) = ").append(NumberText.sig(r.initialComplexity, 10)).append("  ->  ")
-                .append(NumberText.sig(r.complexity, 10)).append('\n');
-        sb.append("  W+ = ").append(NumberText.sig(r.maxResistance, 10)).append(" at ")
+                .append(r.exact ? NumberText.sig(r.complexity, 10) : "in [" + NumberText.sig(r.complexity, 10) + ", "
+                        + NumberText.sig(r.complexityUpper(), 10) + "] (not exact: see \"cut\")").append('\n');
+        sb.append("  W+ = ").append(interval(r.maxResistance, r.maxResistanceUpper, r.exact)).append(" at ")
                 .append(inputText(r.worstPositive, r.worstPositiveCertificate, n))
-                .append(",  W- = ").append(NumberText.sig(r.maxCapacitance, 10)).append(" at ")
+                .append(",  W- = ").append(interval(r.maxCapacitance, r.maxCapacitanceUpper, r.exact)).append(" at ")
                 .append(inputText(r.worstNegative, r.worstNegativeCertificate, n))
                 .append(r.balanced ? "  (balanced)" : "").append('\n');
+        if (r.cut != null) {
+            sb.append("  cut         ").append(r.cut).append('\n');
+        }
         sb.append("  weights\n");
         for (Edge e : sc.edges()) {
             sb.append("    ").append(e.id()).append(" (").append(e.when()).append(")  ")

@@ -147,12 +147,25 @@ public final class ResultJson {
         m.put("bestStart", r.bestStart);
         m.put("initialComplexity", num(r.initialComplexity));
         m.put("complexity", num(r.complexity));
+        m.put("exact", r.exact);
+        if (!r.exact) {
+            m.put("complexityUpper", num(r.complexityUpper()));
+        }
+        if (r.cut != null) {
+            m.put("cut", r.cut);
+        }
         Map<String, Object> pos = new LinkedHashMap<>();
         pos.put("maxResistance", num(r.maxResistance));
+        if (!r.exact) {
+            pos.put("upper", num(r.maxResistanceUpper));
+        }
         pos.put("worst", worst(r.worstPositive, r.worstPositiveCertificate, n));
         m.put("positive", pos);
         Map<String, Object> neg = new LinkedHashMap<>();
         neg.put("maxCapacitance", num(r.maxCapacitance));
+        if (!r.exact) {
+            neg.put("upper", num(r.maxCapacitanceUpper));
+        }
         neg.put("worst", worst(r.worstNegative, r.worstNegativeCertificate, n));
         m.put("negative", neg);
         Map<String, Object> w = new LinkedHashMap<>();
@@ -176,7 +189,7 @@ public final class ResultJson {
             ws.put("why", "beyond enumeration the weights are optimised against a growing working set of worst inputs"
                     + " (paths and bonds on host graphs); after each round the structural engine finds the worst input"
                     + " under the new weights, and the search ends when it finds none worse than the set; the final"
-                    + " W+ and W- are the engine's exact values");
+                    + " W+ and W- are the engine's values (exact unless \"exact\" is false)");
             m.put("workingSet", ws);
         }
         Map<String, Object> cand = new LinkedHashMap<>();
@@ -186,7 +199,8 @@ public final class ResultJson {
         cand.put("why", r.method.equals("working-set") ? "only the working set's inputs are evaluated during the"
                 + " search; the structural engine searches the whole domain by paths and bonds (or branch and bound)"
                 : "inputs dominated by a neighbour under Rayleigh monotonicity cannot be worst and are skipped "
-                + "during the search; the final numbers come from the full analysis");
+                + "during the search; the final numbers come from the full analysis"
+                + (r.cut == null ? "" : " unless the time budget cut it (see \"cut\")"));
         m.put("evaluated", cand);
         Map<String, Object> cert = new LinkedHashMap<>();
         cert.put("positive", r.worstPositiveCertificate == null ? Json.NULL : detail(sc, r.worstPositiveCertificate));

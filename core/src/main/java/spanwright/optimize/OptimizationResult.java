@@ -58,6 +58,24 @@ public final class OptimizationResult {
     public final int workingSetNegative;
     /** How the engine computed the final W₊ and W₋ (one line each side), or null for the whole domain. */
     public final String engine;
+    /**
+     * Are {@link #maxResistance} and {@link #maxCapacitance} exact for the returned weights? When
+     * false they are lower ends (values of inputs that were evaluated) and {@link #maxResistanceUpper},
+     * {@link #maxCapacitanceUpper} certified upper ends (+∞ when nothing bounds them).
+     */
+    public final boolean exact;
+    public final double maxResistanceUpper;
+    public final double maxCapacitanceUpper;
+    /**
+     * What the time budget cut beyond the search itself (the listing of candidates, an evaluation,
+     * an engine call, the final check of the returned weights), what the numbers then are, and how
+     * to get the rest; null when nothing but the search was cut. In words, for people.
+     */
+    public final String cut;
+    /** Does the graph decide f on the domain: true, false, or null (no function, or not checked)? */
+    public final Boolean correct;
+    /** {@link spanwright.analysis.Analysis#notABound} when the graph does not decide f, else null. */
+    public final String standing;
 
     OptimizationResult(Status status, Scenario scenario, double initialComplexity, double complexity,
             double maxResistance, double maxCapacitance, long worstPositive, long worstNegative,
@@ -75,6 +93,25 @@ public final class OptimizationResult {
             int iterations, long evaluations, int starts, int bestStart, boolean balanced,
             int candidatePositive, int candidateNegative, long domainSize, String method, int rounds,
             int workingSetPositive, int workingSetNegative, String engine) {
+        this(status, scenario, initialComplexity, complexity, maxResistance, maxCapacitance, worstPositive,
+                worstNegative, worstPositiveCertificate, worstNegativeCertificate, trace, iterations, evaluations, starts,
+                bestStart, balanced, candidatePositive, candidateNegative, domainSize, method, rounds, workingSetPositive,
+                workingSetNegative, engine, true, maxResistance, maxCapacitance, null, null, null);
+    }
+
+    private OptimizationResult(Status status, Scenario scenario, double initialComplexity, double complexity,
+            double maxResistance, double maxCapacitance, long worstPositive, long worstNegative,
+            InputDetail worstPositiveCertificate, InputDetail worstNegativeCertificate, List<Double> trace,
+            int iterations, long evaluations, int starts, int bestStart, boolean balanced,
+            int candidatePositive, int candidateNegative, long domainSize, String method, int rounds,
+            int workingSetPositive, int workingSetNegative, String engine, boolean exact, double maxResistanceUpper,
+            double maxCapacitanceUpper, String cut, Boolean correct, String standing) {
+        this.exact = exact;
+        this.maxResistanceUpper = maxResistanceUpper;
+        this.maxCapacitanceUpper = maxCapacitanceUpper;
+        this.cut = cut;
+        this.correct = correct;
+        this.standing = standing;
         this.method = method;
         this.rounds = rounds;
         this.workingSetPositive = workingSetPositive;
@@ -99,6 +136,24 @@ public final class OptimizationResult {
         this.candidatePositive = candidatePositive;
         this.candidateNegative = candidateNegative;
         this.domainSize = domainSize;
+    }
+
+    /**
+     * This result with its certainty: whether the values are exact, their upper ends, what the time
+     * budget cut (null: nothing beyond the search), and the reduction's verdict and standing.
+     */
+    OptimizationResult certified(boolean isExact, double rUpper, double cUpper, String cutText, Boolean isCorrect,
+            String standingText) {
+        return new OptimizationResult(status, scenario, initialComplexity, complexity, maxResistance, maxCapacitance,
+                worstPositive, worstNegative, worstPositiveCertificate, worstNegativeCertificate, trace, iterations,
+                evaluations, starts, bestStart, balanced, candidatePositive, candidateNegative, domainSize, method,
+                rounds, workingSetPositive, workingSetNegative, engine, isExact, isExact ? maxResistance : rUpper,
+                isExact ? maxCapacitance : cUpper, cutText, isCorrect, standingText);
+    }
+
+    /** The upper end of √(W₊W₋): {@link #complexity} itself when {@link #exact}. */
+    public double complexityUpper() {
+        return exact ? complexity : Math.sqrt(maxResistanceUpper * maxCapacitanceUpper);
     }
 
     /** Progress callback; return false to cancel. */

@@ -6,7 +6,9 @@ import java.util.List;
 import java.util.Set;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
+import spanwright.analysis.AnalysisRun;
 import spanwright.analysis.CandidateInputs;
+import spanwright.analysis.InputDetail;
 import spanwright.analysis.Summary;
 import spanwright.electric.Witness;
 import spanwright.model.Deadline;
@@ -115,6 +117,14 @@ public final class WeightOptimizer {
     /**
      * One optimisation, advanced one outer step per {@link #step} call; {@link #optimize} is a loop
      * over these steps, so a stepped run and a one-call run are the same computation.
+     *
+     * <p><b>Time budget.</b> One {@link Deadline} covers the whole call: the listing of the
+     * candidate inputs (one check per input of the domain), every evaluation (one check per
+     * candidate), the surrogate's Newton iterations, the outer steps, and the final pass over the
+     * domain. The search keeps in reserve the final pass's time, estimated from the first
+     * evaluation, when that is at most half the budget; otherwise the final pass is skipped. When
+     * the budget runs out before the search could start, the result keeps the given weights with
+     * the values reached (lower ends) and says so ({@link OptimizationResult#cut}).
      * <b>Mutable, single-threaded.</b>
      */
     public static final class Run {
@@ -139,6 +149,16 @@ public final class WeightOptimizer {
         private boolean cancelled;
         private boolean finished;
         private OptimizationResult.Status finalStatus;
+        /** What the budget cut before the search could start, or null. */
+        private String earlyCut;
+        /** Did the first evaluation reach every candidate of a complete list? */
+        private final boolean initialExact;
+        /** The final pass over the domain (or the caller's candidates) fits in half the budget. */
+        private final boolean finalPassPlanned;
+        private final long finalPassMillis;
+        // the values at the current point and at the best point: W₊, W₋, worst candidate indices
+        private final Values cur = new Values();
+        private final Values best = new Values();
         // the start in progress
         int start = -1;
         int iteration;
@@ -167,19 +187,24 @@ public final class WeightOptimizer {
             this.initial = ws.initial;
             this.solver = null;
             this.rnd = null;
+            this.initialExact = true;
+            this.finalPassPlanned = false;
+            this.finalPassMillis = 0;
         }
 
         Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
             this(scenario, candidates, options, Deadline.after(options.maxMillis));
         }
 
-        /** With a caller's deadline (tests inject a clock). */
+        /** With a caller's deadline (tests inject a clock, or one that expires after a number of checks). */
         Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options, Deadline deadline) {
             this.ws = null;
             this.scenario = scenario;
             this.options = options;
             this.deadline = deadline;
-            this.ev = candidates == null ? new WorstCaseEvaluator(scenario) : new WorstCaseEvaluator(scenario, candidates);
+            long t0 = deadline.now();
+            this.ev = candidates == null ? new WorstCaseEvaluator(scenario, deadline)
+                    : new WorstCaseEvaluator(scenario, candidates);
             WeightGroups wg = new WeightGroups(scenario, ev.keptEdge, options.tie);
             group = wg.group;
             g = wg.count;
@@ -187,18 +212,38 @@ public final class WeightOptimizer {
             u0 = wg.u0;
             anyLocked = wg.anyLocked;
             int freeCount = wg.freeCount;
-            long t0 = deadline.now();
-            initial = Math.sqrt(ev.evaluate(expand(u0, group)));
-            // keep time for result(): one more evaluation, then the analysis of the domain (or of
-            // the caller's candidates), estimated from this evaluation's time
+            long t1 = deadline.now();
+            initial = Math.sqrt(ev.evaluate(expand(u0, group), deadline));
+            cur.take(ev);
+            best.take(ev);
+            initialExact = ev.listingCut == null && ev.complete;
+            // the final pass: one solve per input of the domain (or per caller candidate), estimated
+            // from this evaluation's time; kept in reserve when it fits in half the budget
+            long evalMillis = Math.max(0, deadline.now() - t1);
             double candidateCount = Math.max(1, ev.positives.length + ev.negatives.length);
             double domainShare = ev.callerCandidates ? 1 : Math.min(1e6, ev.domainSize / candidateCount);
-            deadline.reserve((long) Math.ceil((deadline.now() - t0) * (1 + domainShare)));
+            finalPassMillis = (long) Math.ceil(evalMillis * domainShare);
+            finalPassPlanned = finalPassMillis <= options.maxMillis / 2;
+            long certificates = (long) Math.ceil(2 * evalMillis / candidateCount) + 1;
+            deadline.reserve(finalPassPlanned ? finalPassMillis + certificates : certificates);
             bestU = u0;
             bestTrace = List.of(initial);
             solver = new SurrogateSolver(g, free, u0);
             rnd = new SeededRandom(options.seed); // java.util.Random ignores seeds under TeaVM
-            if (Double.isNaN(initial) || freeCount == 0 || initial == 0) {
+            if (ev.listingCut != null) {
+                finished = true;
+                finalStatus = OptimizationResult.Status.BUDGET_REACHED;
+                earlyCut = "the time budget ran out while " + ev.listingCut + ", before any weights were tried"
+                        + " (after " + seconds(deadline.now() - t0) + "): the weights are unchanged and W+ and W- were"
+                        + " not computed; give more time (--seconds), or analyze the scenario";
+            } else if (!ev.complete) {
+                finished = true;
+                finalStatus = OptimizationResult.Status.BUDGET_REACHED;
+                earlyCut = "the time budget ran out in the first evaluation of the candidate inputs (" + ev.evaluated
+                        + " of " + (ev.positives.length + ev.negatives.length) + " evaluated), before any weights were"
+                        + " tried: the weights are unchanged; W+ and W- are lower ends over the inputs evaluated, with"
+                        + " derived upper ends; give more time (--seconds), or analyze the scenario";
+            } else if (Double.isNaN(initial) || freeCount == 0 || initial == 0) {
                 finished = true;
                 finalStatus = OptimizationResult.Status.NOTHING_TO_DO;
                 bestTrace = List.of(initial);
@@ -306,7 +351,10 @@ public final class WeightOptimizer {
                     finishSearch(bestStatus);
                     return true;
                 }
-                beginStart();
+                if (!beginStart()) {
+                    finishSearch(OptimizationResult.Status.BUDGET_REACHED); // its first evaluation was cut
+                    return true;
+                }
                 return false;
             }
             if (iteration >= options.maxIterations || deadline.passed()) {
@@ -323,7 +371,11 @@ public final class WeightOptimizer {
                     break;
                 }
                 if (attempt > 0) {
-                    ev.evaluate(expand(u, group)); // the values at u, not at the last trial
+                    ev.evaluate(expand(u, group), deadline); // the values at u, not at the last trial
+                    if (!ev.complete) {
+                        outOfTime = true;
+                        break;
+                    }
                 }
                 int before = activeP.size() + activeN.size();
                 int cap = ADD_PER_STEP << (2 * attempt);
@@ -344,11 +396,16 @@ public final class WeightOptimizer {
                     for (int q = 0; q < g; q++) {
                         trial[q] = u[q] + t * (target[q] - u[q]);
                     }
-                    double ft = ev.evaluate(expand(trial, group));
+                    double ft = ev.evaluate(expand(trial, group), deadline);
+                    if (!ev.complete) {
+                        outOfTime = true; // a trial not evaluated on every candidate is not compared
+                        break;
+                    }
                     if (ft < f * (1 - 1e-15)) {
                         accepted = true;
                         fNew = ft;
                         uNew = trial;
+                        cur.take(ev);
                         break;
                     }
                     t *= 0.5;
@@ -361,7 +418,6 @@ public final class WeightOptimizer {
                 return false;
             }
             if (!accepted) {
-                ev.evaluate(expand(u, group)); // restore the evaluator's state at u
                 endStart(OptimizationResult.Status.CONVERGED);
                 return false;
             }
@@ -375,7 +431,8 @@ public final class WeightOptimizer {
             return false;
         }
 
-        private void beginStart() {
+        /** Begins the next start; false when the budget cut its first evaluation (the start is dropped). */
+        private boolean beginStart() {
             start++;
             iteration = 0;
             double[] v = u0.clone();
@@ -387,12 +444,17 @@ public final class WeightOptimizer {
                 }
             }
             u = solver.clamp(v);
-            f = ev.evaluate(expand(u, group));
+            f = ev.evaluate(expand(u, group), deadline);
+            if (!ev.complete) {
+                return false;
+            }
+            cur.take(ev);
             trace = new ArrayList<>();
             trace.add(Math.sqrt(f));
             activeP = new LinkedHashSet<>();
             activeN = new LinkedHashSet<>();
             inStart = true;
+            return true;
         }
 
         private void endStart(OptimizationResult.Status s) {
@@ -403,6 +465,7 @@ public final class WeightOptimizer {
                 bestTrace = trace;
                 bestStatus = s;
                 bestStart = start;
+                best.copy(cur);
             }
         }
 
@@ -411,7 +474,10 @@ public final class WeightOptimizer {
             finalStatus = s;
         }
 
-        /** The result; requires {@link #done()}. Runs the full analysis of the final weights. */
+        /**
+         * The result; requires {@link #done()}. Runs the final pass over the domain (or the caller's
+         * candidates) with the returned weights when the budget leaves time for it.
+         */
         public OptimizationResult result() {
             if (ws != null) {
                 return ws.result();
@@ -419,12 +485,149 @@ public final class WeightOptimizer {
             if (!finished) {
                 throw new IllegalStateException("optimisation not finished");
             }
-            if (finalStatus == OptimizationResult.Status.NOTHING_TO_DO) {
-                return finish(scenario, ev, u0, group, anyLocked, finalStatus, initial, bestTrace, 0, 1, 0);
+            if (finalStatus == OptimizationResult.Status.NOTHING_TO_DO || earlyCut != null) {
+                return finish(u0, best, initialExact, List.of(initial), 0, 1, 0);
             }
-            return finish(scenario, ev, bestU, group, anyLocked, finalStatus, initial, bestTrace, totalIterations,
-                    options.starts, bestStart);
+            return finish(bestU, best, true, bestTrace, totalIterations, options.starts, bestStart);
         }
+
+        private OptimizationResult finish(double[] u, Values v, boolean exact, List<Double> trace, int iterations,
+                int starts, int bestStartIndex) {
+            double[] w = expand(u, group);
+            double maxR = v.maxR;
+            double maxC = v.maxC;
+            boolean balanced = false;
+            if (exact && !anyLocked && v.worstPositive >= 0 && v.worstNegative >= 0 && maxR > 0 && maxC > 0) {
+                double lambda = Math.sqrt(maxC / maxR);
+                double lo = 0;
+                double hi = Double.POSITIVE_INFINITY;
+                for (double x : w) {
+                    lo = Math.max(lo, Edge.MIN_WEIGHT / x);
+                    hi = Math.min(hi, Edge.MAX_WEIGHT / x);
+                }
+                // balance only as far as the accepted weight range allows (always, unless the
+                // weights already span nearly the whole range)
+                balanced = lambda >= lo && lambda <= hi;
+                lambda = Math.max(lo, Math.min(hi, lambda));
+                for (int k = 0; k < w.length; k++) {
+                    w[k] = Math.max(Edge.MIN_WEIGHT, Math.min(Edge.MAX_WEIGHT, w[k] * lambda));
+                }
+                // derived: scaling every weight by λ scales every R by λ and every C by 1/λ
+                maxR *= lambda;
+                maxC /= lambda;
+            }
+            double[] all = new double[scenario.edges().size()];
+            for (int i = 0; i < all.length; i++) {
+                all[i] = scenario.edges().get(i).weight();
+            }
+            for (int k = 0; k < group.length; k++) {
+                all[ev.keptEdge[k]] = w[k];
+            }
+            Scenario out = scenario.withWeights(all);
+            deadline.reserve(0); // the final pass may use what is left
+            long domain = (long) Math.min(ev.domainSize, Long.MAX_VALUE);
+            Boolean correct = ev.candidates == null || !ev.candidates.checked() ? null
+                    : ev.candidates.counterexampleCount() == 0;
+            String standing = Boolean.FALSE.equals(correct)
+                    ? Analysis.notABound(Long.toString((long) ev.candidates.counterexampleCount())) : null;
+            String cut = earlyCut;
+            if (exact) {
+                String pass = ev.callerCandidates ? "the final pass over the " + ev.candidates.size()
+                        + " candidate inputs" : "the final pass over all " + domain + " inputs of the domain";
+                if (!finalPassPlanned) {
+                    cut = pass + " (a re-check of the returned weights) was skipped: by the first evaluation's time it"
+                            + " takes about " + seconds(finalPassMillis) + ", more than half the budget";
+                } else if (ev.callerCandidates) {
+                    Summary.Builder b = new Summary.Builder(out, Summary.Coverage.CANDIDATES, 0, true);
+                    int k = 0;
+                    for (; k < ev.candidates.size() && !deadline.passed(); k++) {
+                        b.add(ev.candidates.input(k));
+                    }
+                    if (k == ev.candidates.size()) {
+                        // the domain may be far too large for a pass: values and worst inputs over the candidates
+                        Summary r = b.build();
+                        return new OptimizationResult(finalStatus, out, initial, r.complexity(), r.maxResistance(),
+                                r.maxCapacitance(), r.worstPositive(), r.worstNegative(),
+                                r.worstPositive() < 0 ? null : Analysis.detail(out, r.worstPositive()),
+                                r.worstNegative() < 0 ? null : Analysis.detail(out, r.worstNegative()), trace,
+                                iterations, ev.solves, starts, bestStartIndex, balanced, ev.positives.length,
+                                ev.negatives.length, domain).certified(true, 0, 0, null, correct, standing);
+                    }
+                    cut = pass + " (a re-check of the returned weights) was cut by the time budget after " + k
+                            + " inputs";
+                } else {
+                    AnalysisRun run = Analysis.start(out);
+                    while (!run.done() && !deadline.passed()) {
+                        run.step(1);
+                    }
+                    if (run.done()) {
+                        AnalysisResult r = run.result();
+                        Boolean ok = r.correct();
+                        return new OptimizationResult(finalStatus, out, initial, r.complexity(), r.maxResistance(),
+                                r.maxCapacitance(), r.worstPositive(), r.worstNegative(), r.worstPositiveDetail(),
+                                r.worstNegativeDetail(), trace, iterations, ev.solves, starts, bestStartIndex, balanced,
+                                ev.positives.length, ev.negatives.length, domain).certified(true, 0, 0, null, ok,
+                                        Boolean.FALSE.equals(ok) ? Analysis.notABound(Long.toString(
+                                                r.counterexampleCount())) : null);
+                    }
+                    cut = pass + " (a re-check of the returned weights, which also picks the first worst input in"
+                            + " input order) was cut by the time budget after " + run.processed() + " inputs";
+                }
+                cut += ": W+ and W- are exact all the same, computed on the " + (ev.positives.length
+                        + ev.negatives.length) + " candidate inputs that can be worst ("
+                        + (ev.callerCandidates ? "the caller's candidates" : "by Rayleigh monotonicity")
+                        + ") with these weights; for the full pass give more time (--seconds), or analyze the"
+                        + " written scenario";
+            }
+            long xp = v.worstPositive < 0 ? -1 : ev.positives[v.worstPositive];
+            long xn = v.worstNegative < 0 ? -1 : ev.negatives[v.worstNegative];
+            InputDetail dp = xp < 0 ? null : Analysis.detail(out, xp);
+            InputDetail dn = xn < 0 ? null : Analysis.detail(out, xn);
+            double rUpper = maxR;
+            double cUpper = maxC;
+            if (!exact) {
+                // derived caps, valid for every input (see StructuralAnalysis): R ≤ Σ w (the unit flow
+                // along one s–t path of present edges), C ≤ Σ 1/w over the switchable edges
+                rUpper = 0;
+                cUpper = 0;
+                for (Edge e : out.edges()) {
+                    if (!e.isSelfLoop()) {
+                        rUpper += e.weight();
+                        cUpper += e.when().isAlways() ? 0 : 1 / e.weight();
+                    }
+                }
+            }
+            return new OptimizationResult(finalStatus, out, initial, Math.sqrt(maxR * maxC), maxR, maxC, xp, xn, dp, dn,
+                    trace, iterations, ev.solves, starts, bestStartIndex, balanced, ev.positives.length,
+                    ev.negatives.length, domain).certified(exact, rUpper, cUpper, cut, correct, standing);
+        }
+    }
+
+    /** W₊, W₋ and their worst candidates (indices) at one point. */
+    private static final class Values {
+        double maxR = Double.NaN;
+        double maxC = Double.NaN;
+        int worstPositive = -1;
+        int worstNegative = -1;
+
+        void take(WorstCaseEvaluator ev) {
+            maxR = ev.maxR;
+            maxC = ev.maxC;
+            worstPositive = ev.worstPositive;
+            worstNegative = ev.worstNegative;
+        }
+
+        void copy(Values o) {
+            maxR = o.maxR;
+            maxC = o.maxC;
+            worstPositive = o.worstPositive;
+            worstNegative = o.worstNegative;
+        }
+    }
+
+    /** Milliseconds as seconds in words ("2.5 s"). */
+    static String seconds(long millis) {
+        return spanwright.io.NumberText.sig(millis / 1000.0, 3) + " s";
     }
 
     private static void addNearWorst(double[] values, double max, int worst, Set<Integer> active, int cap) {
@@ -475,52 +678,5 @@ public final class WeightOptimizer {
             w[k] = Math.min(Edge.MAX_WEIGHT, Math.max(Edge.MIN_WEIGHT, Math.exp(u[group[k]])));
         }
         return w;
-    }
-
-    private static OptimizationResult finish(Scenario scenario, WorstCaseEvaluator ev, double[] u, int[] group,
-            boolean anyLocked, OptimizationResult.Status status, double initial, List<Double> trace,
-            int iterations, int starts, int bestStart) {
-        double[] w = expand(u, group);
-        ev.evaluate(w);
-        boolean balanced = false;
-        if (!anyLocked && ev.worstPositive >= 0 && ev.worstNegative >= 0 && ev.maxR > 0 && ev.maxC > 0) {
-            double lambda = Math.sqrt(ev.maxC / ev.maxR);
-            double lo = 0;
-            double hi = Double.POSITIVE_INFINITY;
-            for (double x : w) {
-                lo = Math.max(lo, Edge.MIN_WEIGHT / x);
-                hi = Math.min(hi, Edge.MAX_WEIGHT / x);
-            }
-            // balance only as far as the accepted weight range allows (always, unless the
-            // weights already span nearly the whole range)
-            balanced = lambda >= lo && lambda <= hi;
-            lambda = Math.max(lo, Math.min(hi, lambda));
-            for (int k = 0; k < w.length; k++) {
-                w[k] = Math.max(Edge.MIN_WEIGHT, Math.min(Edge.MAX_WEIGHT, w[k] * lambda));
-            }
-        }
-        double[] all = new double[scenario.edges().size()];
-        for (int i = 0; i < all.length; i++) {
-            all[i] = scenario.edges().get(i).weight();
-        }
-        for (int k = 0; k < group.length; k++) {
-            all[ev.keptEdge[k]] = w[k];
-        }
-        Scenario out = scenario.withWeights(all);
-        if (ev.callerCandidates) {
-            // the domain may be far too large for a pass: values and worst inputs over the candidates
-            Summary r = Analysis.summarize(out, ev.candidates, 0, ev.candidates.size());
-            return new OptimizationResult(status, out, initial, r.complexity(), r.maxResistance(), r.maxCapacitance(),
-                    r.worstPositive(), r.worstNegative(),
-                    r.worstPositive() < 0 ? null : Analysis.detail(out, r.worstPositive()),
-                    r.worstNegative() < 0 ? null : Analysis.detail(out, r.worstNegative()), trace,
-                    iterations, ev.solves, starts, bestStart, balanced, ev.positives.length, ev.negatives.length,
-                    (long) Math.min(ev.domainSize, Long.MAX_VALUE));
-        }
-        AnalysisResult r = Analysis.run(out);
-        return new OptimizationResult(status, out, initial, r.complexity(), r.maxResistance(), r.maxCapacitance(),
-                r.worstPositive(), r.worstNegative(), r.worstPositiveDetail(), r.worstNegativeDetail(), trace,
-                iterations, ev.solves, starts, bestStart, balanced, ev.positives.length, ev.negatives.length,
-                (long) ev.domainSize);
     }
 }

@@ -67,9 +67,12 @@ final class WorkingSetSearch {
         }
     }
 
-    /** The engine's answer at one weighting. */
-    record Engine(double maxR, double maxC, InputDetail worstPositive, InputDetail worstNegative, boolean exact,
-            String how) {
+    /**
+     * The engine's answer at one weighting: W₊ and W₋ (lower ends when not exact), their upper
+     * ends, the worst inputs with witnesses, and what the time budget cut (null: nothing).
+     */
+    record Engine(double maxR, double maxC, double upperR, double upperC, InputDetail worstPositive,
+            InputDetail worstNegative, boolean exact, String how, String cut) {
         double product() {
             return maxR * maxC;
         }
@@ -110,11 +113,24 @@ final class WorkingSetSearch {
     private int bestStart;
     private OptimizationResult.Status bestStatus = OptimizationResult.Status.CONVERGED;
     private Engine bestEngine;
+    /** What the budget cut before the search could start, or null. */
+    private String earlyCut;
 
     WorkingSetSearch(Scenario scenario, OptimizerOptions options) {
+        this(scenario, options, Deadline.after(options.maxMillis));
+    }
+
+    /**
+     * With a caller's deadline (tests inject one that expires after a number of checks). The
+     * budget covers the whole call: every engine call (frontier search, subset DP, branch and
+     * bound each check it), every evaluation of the working set, the final check and the
+     * reduction's verdict. The search keeps in reserve the first engine call's time (at most half
+     * the budget) for the final check of the balanced weights.
+     */
+    WorkingSetSearch(Scenario scenario, OptimizerOptions options, Deadline deadline) {
         this.scenario = scenario;
         this.options = options;
-        this.deadline = Deadline.after(options.maxMillis);
+        this.deadline = deadline;
         List<Integer> kept = new ArrayList<>();
         for (int i = 0; i < scenario.edges().size(); i++) {
             if (!scenario.edges().get(i).isSelfLoop()) {
@@ -135,11 +151,20 @@ final class WorkingSetSearch {
         network = new ElectricalNetwork(scenario.vertexCount(), scenario.s(), scenario.t(), eu, ev, w);
         solver = new SurrogateSolver(groups.count, groups.free, groups.u0);
         rnd = new SeededRandom(options.seed);
+        long t0 = deadline.now();
         initialEngine = engine(groups.expand(groups.u0));
+        deadline.reserve(Math.min(options.maxMillis / 2, Math.max(0, deadline.now() - t0)));
         initial = Math.sqrt(initialEngine.product());
         bestU = groups.u0;
         bestEngine = initialEngine;
-        if (Double.isNaN(initial) || groups.freeCount == 0 || initial == 0) {
+        if (initialEngine.cut != null) {
+            finished = true;
+            finalStatus = OptimizationResult.Status.BUDGET_REACHED;
+            bestTrace = List.of(initial);
+            earlyCut = "the time budget ran out in the structural engine's first call, before any weights were tried"
+                    + " (" + initialEngine.cut + "): the weights are unchanged and W+ and W- are certified intervals;"
+                    + " give more time (--seconds), or analyze the scenario";
+        } else if (Double.isNaN(initial) || groups.freeCount == 0 || initial == 0) {
             finished = true;
             finalStatus = OptimizationResult.Status.NOTHING_TO_DO;
             bestTrace = List.of(initial);
@@ -163,9 +188,10 @@ final class WorkingSetSearch {
     private Engine engine(double[] w) {
         engineCalls++;
         StructuralAnalysis.Result r = StructuralAnalysis.worstCases(weighted(w), StructuralAnalysis.DEFAULT_STATES,
-                StructuralAnalysis.DEFAULT_NODES);
-        return new Engine(r.positive().value(), r.negative().value(), r.positive().worst(), r.negative().worst(),
-                r.exact(), "W+: " + r.positive().method() + "; W-: " + r.negative().method());
+                StructuralAnalysis.DEFAULT_NODES, deadline);
+        return new Engine(r.positive().value(), r.negative().value(), r.positive().upper(), r.negative().upper(),
+                r.positive().worst(), r.negative().worst(), r.exact(), "W+: " + r.positive().method() + "; W-: "
+                        + r.negative().method(), r.cut());
     }
 
     /** Adds the input of {@code d} to the set unless it is there; true when added. */
@@ -294,11 +320,14 @@ final class WorkingSetSearch {
             return true;
         }
         if (!inStart) {
-            if (start + 1 >= options.starts) {
-                finish(bestStatus);
+            if (start > 0 && deadline.passed() || start + 1 >= options.starts) {
+                finish(start + 1 >= options.starts ? bestStatus : OptimizationResult.Status.BUDGET_REACHED);
                 return true;
             }
-            beginStart();
+            if (!beginStart()) {
+                finish(OptimizationResult.Status.BUDGET_REACHED); // the engine call of a new start was cut
+                return true;
+            }
             return false;
         }
         if (round >= options.maxIterations || deadline.passed()) {
@@ -308,6 +337,9 @@ final class WorkingSetSearch {
         // minimise F_S by majorise–minimise from u
         double f = setObjective(groups.expand(u));
         for (int inner = 0; inner < INNER_STEPS; inner++) {
+            if (inner > 0 && deadline.passed()) {
+                break; // one evaluation of the set per check
+            }
             List<double[]> a = new ArrayList<>();
             List<double[]> b = new ArrayList<>();
             boolean linear = rows(groups.expand(u), a, b);
@@ -319,6 +351,9 @@ final class WorkingSetSearch {
             double[] next = null;
             double fn = f;
             for (int ls = 0; ls < 30; ls++) {
+                if (ls > 0 && deadline.passed()) {
+                    break;
+                }
                 double[] trial = new double[groups.count];
                 for (int q = 0; q < groups.count; q++) {
                     trial[q] = u[q] + t * (target[q] - u[q]);
@@ -347,6 +382,11 @@ final class WorkingSetSearch {
         Engine e = engine(groups.expand(u));
         round++;
         totalRounds++;
+        if (e.cut != null) {
+            // the engine's values at u are not exact: u is not compared, the start ends at its best
+            endStart(OptimizationResult.Status.BUDGET_REACHED);
+            return false;
+        }
         double fe = e.product();
         if (fe < startBest) {
             startBest = fe;
@@ -370,7 +410,8 @@ final class WorkingSetSearch {
     private double[] startU;
     private Engine startEngine;
 
-    private void beginStart() {
+    /** Begins the next start; false when the time budget cut its engine call (the start is dropped). */
+    private boolean beginStart() {
         start++;
         round = 0;
         double[] v = groups.u0.clone();
@@ -383,6 +424,9 @@ final class WorkingSetSearch {
         }
         u = solver.clamp(v);
         Engine e = start == 0 && java.util.Arrays.equals(u, groups.u0) ? initialEngine : engine(groups.expand(u));
+        if (e.cut != null) {
+            return false;
+        }
         add(e.worstPositive, true);
         add(e.worstNegative, false);
         startBest = e.product();
@@ -391,6 +435,7 @@ final class WorkingSetSearch {
         trace = new ArrayList<>();
         trace.add(Math.sqrt(startBest));
         inStart = true;
+        return true;
     }
 
     private void endStart(OptimizationResult.Status s) {
@@ -410,30 +455,81 @@ final class WorkingSetSearch {
         finalStatus = s;
     }
 
-    /** The result; requires {@link #done()}: the best weights, balanced, with the engine's certificates. */
+    /**
+     * The result; requires {@link #done()}: the best weights, balanced, with the engine's
+     * certificates. The engine checks the balanced weights again in the time left; when the budget
+     * cuts that check, the values are those the engine found for the best weights in the search,
+     * scaled exactly (every R scales with the weights, every C inversely), with the worst inputs'
+     * witnesses recomputed, and the result says so.
+     */
     OptimizationResult result() {
         if (!finished) {
             throw new IllegalStateException("optimisation not finished");
         }
-        boolean nothing = finalStatus == OptimizationResult.Status.NOTHING_TO_DO;
+        boolean nothing = finalStatus == OptimizationResult.Status.NOTHING_TO_DO || earlyCut != null;
         double[] w = groups.expand(nothing ? groups.u0 : bestU);
         Engine e = nothing ? initialEngine : bestEngine;
         boolean balanced = false;
-        if (!groups.anyLocked && e.maxR > 0 && e.maxC > 0) {
-            double lambda = Math.sqrt(e.maxC / e.maxR);
+        double lambda = 1;
+        if (!groups.anyLocked && e.exact && e.maxR > 0 && e.maxC > 0) {
+            lambda = Math.sqrt(e.maxC / e.maxR);
             for (int k = 0; k < w.length; k++) {
                 w[k] *= lambda;
             }
             balanced = true;
         }
         Scenario out = weighted(w);
-        Engine fin = engine(w);
+        deadline.reserve(0); // the final check may use what is left
+        String cut = earlyCut;
+        Engine fin = null;
+        if (earlyCut == null && !deadline.passed()) {
+            fin = engine(w);
+            if (fin.cut != null) {
+                cut = "the final check of the balanced weights by the structural engine was cut by the time budget ("
+                        + fin.cut + "); W+ and W- are the engine's values for these weights found during the search,"
+                        + " scaled exactly (R scales with the weights, C inversely); for a fresh check give more time"
+                        + " (--seconds), or analyze the written scenario";
+                fin = null;
+            }
+        } else if (earlyCut == null) {
+            cut = "the final check of the balanced weights by the structural engine was skipped: the time budget was"
+                    + " spent; W+ and W- are the engine's values for these weights found during the search, scaled"
+                    + " exactly (R scales with the weights, C inversely); for a fresh check give more time (--seconds),"
+                    + " or analyze the written scenario";
+        }
+        if (fin == null) {
+            // derived: scaling every weight by λ scales every R by λ and every C by 1/λ
+            fin = new Engine(e.maxR * lambda, e.maxC / lambda, e.upperR * lambda, e.upperC / lambda,
+                    rewitness(out, e.worstPositive), rewitness(out, e.worstNegative), e.exact, e.how, null);
+        }
         long xp = fin.worstPositive == null ? -1 : fin.worstPositive.mask;
         long xn = fin.worstNegative == null ? -1 : fin.worstNegative.mask;
         int n = scenario.variableCount();
+        StructuralAnalysis.Reduction red = StructuralAnalysis.reduction(scenario, StructuralAnalysis.DEFAULT_DIAGRAM_NODES,
+                deadline);
+        Boolean correct = red.correct();
+        String standing = Boolean.FALSE.equals(correct)
+                ? spanwright.analysis.Analysis.notABound(String.valueOf(red.counterexamples())) : null;
+        if (red.timeCut()) {
+            cut = (cut == null ? "" : cut + "; ") + "the reduction check was cut by the time budget: whether the"
+                    + " graph decides f is not known (analyze checks it)";
+        }
         return new OptimizationResult(finalStatus, out, initial, Math.sqrt(fin.product()), fin.maxR, fin.maxC, xp, xn,
                 fin.worstPositive, fin.worstNegative, nothing ? List.of(initial) : bestTrace, totalRounds, solves,
                 nothing ? 1 : options.starts, bestStart, balanced, 0, 0, n <= 62 ? 1L << n : -1, "working-set",
-                totalRounds, workingSetSize(true), workingSetSize(false), fin.how);
+                totalRounds, workingSetSize(true), workingSetSize(false), fin.how)
+                .certified(fin.exact, fin.upperR, fin.upperC, cut, correct, standing);
+    }
+
+    /** The input of {@code d} with its witness under the weights of {@code sc} (null for null). */
+    private static InputDetail rewitness(Scenario sc, InputDetail d) {
+        if (d == null) {
+            return null;
+        }
+        boolean[] x = new boolean[d.input.length()];
+        for (int i = 0; i < x.length; i++) {
+            x[i] = d.input.charAt(i) == '1';
+        }
+        return StructuralAnalysis.detail(sc, x);
     }
 }

@@ -3,6 +3,7 @@ package spanwright.optimize;
 import spanwright.analysis.CandidateInputs;
 import spanwright.analysis.InputEvaluator;
 import spanwright.electric.Witness;
+import spanwright.model.Deadline;
 import spanwright.model.Scenario;
 
 /**
@@ -24,7 +25,10 @@ final class WorstCaseEvaluator {
     final long[] negatives;
     private final InputEvaluator inputs;
     final double domainSize;
+    /** The candidates, or null when the time budget ran out while they were listed. */
     final CandidateInputs candidates;
+    /** Where the budget ran out while the candidates were listed, or null when they are all there. */
+    final String listingCut;
 
     // last evaluation
     final double[] positiveValue;
@@ -34,27 +38,49 @@ final class WorstCaseEvaluator {
     int worstPositive;
     int worstNegative;
     long solves;
+    /** Candidates the last evaluation reached: all of them unless its deadline ran out. */
+    int evaluated;
+    /** Did the last evaluation reach every candidate? */
+    boolean complete;
 
     /** Whether the candidates came from the caller (then results are taken over them only). */
     final boolean callerCandidates;
 
     WorstCaseEvaluator(Scenario sc) {
-        this(sc, CandidateInputs.undominated(sc), false);
+        this(sc, null, false, Deadline.none());
+    }
+
+    /**
+     * The undominated candidates, listed within {@code deadline} (one check per input of the
+     * domain); when it runs out first, {@link #listingCut} says where and there are no candidates.
+     */
+    WorstCaseEvaluator(Scenario sc, Deadline deadline) {
+        this(sc, null, false, deadline);
     }
 
     WorstCaseEvaluator(Scenario sc, CandidateInputs candidates) {
-        this(sc, candidates, true);
+        this(sc, candidates, true, Deadline.none());
     }
 
-    private WorstCaseEvaluator(Scenario sc, CandidateInputs candidates, boolean callerCandidates) {
+    private WorstCaseEvaluator(Scenario sc, CandidateInputs given, boolean callerCandidates, Deadline deadline) {
         this.callerCandidates = callerCandidates;
         this.scenario = sc;
-        this.candidates = candidates;
         this.inputs = new InputEvaluator(sc);
         this.keptEdge = inputs.keptEdges();
-        this.domainSize = candidates.domainSize();
-        this.positives = candidates.positives();
-        this.negatives = candidates.negatives();
+        CandidateInputs c = given;
+        String cut = null;
+        if (c == null) {
+            try {
+                c = CandidateInputs.undominated(sc, deadline);
+            } catch (Deadline.Expired e) {
+                cut = e.getMessage();
+            }
+        }
+        this.candidates = c;
+        this.listingCut = cut;
+        this.domainSize = c != null ? c.domainSize() : spanwright.domain.InputDomain.of(sc).size();
+        this.positives = c == null ? new long[0] : c.positives();
+        this.negatives = c == null ? new long[0] : c.negatives();
         positiveValue = new double[positives.length];
         negativeValue = new double[negatives.length];
     }
@@ -70,28 +96,52 @@ final class WorstCaseEvaluator {
      * @return W₊·W₋ (NaN when a side is empty)
      */
     double evaluate(double[] w) {
+        return evaluate(w, null);
+    }
+
+    /**
+     * Evaluates the candidate inputs under weights {@code w} (one per kept edge), positive ones
+     * first, asking {@code deadline} (may be null) before each one: when it has passed the pass
+     * stops there ({@link #complete} false, {@link #evaluated} inputs done) and the maxima are
+     * those of the inputs reached, lower ends of W₊ and W₋.
+     *
+     * @return W₊·W₋ over the inputs reached (NaN when a side is empty or was not reached)
+     */
+    double evaluate(double[] w, Deadline deadline) {
         inputs.setWeights(w);
         maxR = Double.NaN;
         maxC = Double.NaN;
         worstPositive = -1;
         worstNegative = -1;
+        complete = false;
+        evaluated = 0;
         for (int i = 0; i < positives.length; i++) {
+            if (deadline != null && deadline.passed()) {
+                return maxR * maxC;
+            }
             double r = inputs.evaluate(positives[i]);
             positiveValue[i] = r;
+            solves++;
+            evaluated++;
             if (worstPositive < 0 || r > maxR) {
                 maxR = r;
                 worstPositive = i;
             }
         }
         for (int i = 0; i < negatives.length; i++) {
+            if (deadline != null && deadline.passed()) {
+                return maxR * maxC;
+            }
             double c = InputEvaluator.value(inputs.evaluate(negatives[i]));
             negativeValue[i] = c;
+            solves++;
+            evaluated++;
             if (worstNegative < 0 || c > maxC) {
                 maxC = c;
                 worstNegative = i;
             }
         }
-        solves += positives.length + negatives.length;
+        complete = true;
         return maxR * maxC;
     }
 
