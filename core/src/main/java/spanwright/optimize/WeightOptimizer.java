@@ -81,7 +81,17 @@ public final class WeightOptimizer {
      */
     public static OptimizationResult optimize(Scenario scenario, CandidateInputs candidates, OptimizerOptions options,
             OptimizationResult.Listener listener) {
-        Run run = start(scenario, candidates, options);
+        return optimize(scenario, candidates, options, listener, Deadline.after(options.maxMillis));
+    }
+
+    /**
+     * {@link #optimize(Scenario, CandidateInputs, OptimizerOptions, OptimizationResult.Listener)}
+     * within the caller's {@code deadline} for the whole call (instead of the options' time
+     * budget, which still sizes the reserve for the final pass).
+     */
+    public static OptimizationResult optimize(Scenario scenario, CandidateInputs candidates, OptimizerOptions options,
+            OptimizationResult.Listener listener, Deadline deadline) {
+        Run run = start(scenario, candidates, options, deadline);
         while (!run.step()) {
             if (run.accepted && listener != null
                     && !listener.progress(run.start, run.iteration, Math.sqrt(run.f))) {
@@ -93,10 +103,15 @@ public final class WeightOptimizer {
 
     /** Starts a stepwise optimisation (for callers that show progress): see {@link Run}. */
     public static Run start(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
+        return start(scenario, candidates, options, Deadline.after(options.maxMillis));
+    }
+
+    /** {@link #start(Scenario, CandidateInputs, OptimizerOptions)} within the caller's deadline for the whole run. */
+    public static Run start(Scenario scenario, CandidateInputs candidates, OptimizerOptions options, Deadline deadline) {
         if (candidates == null && usesWorkingSet(scenario, options)) {
-            return new Run(new WorkingSetSearch(scenario, options));
+            return new Run(new WorkingSetSearch(scenario, options, deadline));
         }
-        return new Run(scenario, candidates, options);
+        return new Run(scenario, candidates, options, deadline);
     }
 
     /**
@@ -192,10 +207,6 @@ public final class WeightOptimizer {
             this.finalPassMillis = 0;
         }
 
-        Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options) {
-            this(scenario, candidates, options, Deadline.after(options.maxMillis));
-        }
-
         /** With a caller's deadline (tests inject a clock, or one that expires after a number of checks). */
         Run(Scenario scenario, CandidateInputs candidates, OptimizerOptions options, Deadline deadline) {
             this.ws = null;
@@ -235,7 +246,9 @@ public final class WeightOptimizer {
                 finalStatus = OptimizationResult.Status.BUDGET_REACHED;
                 earlyCut = "the time budget ran out while " + ev.listingCut + ", before any weights were tried"
                         + " (after " + seconds(deadline.now() - t0) + "): the weights are unchanged and W+ and W- were"
-                        + " not computed; give more time (--seconds), or analyze the scenario";
+                        + " not computed (the upper ends shown are derived: the sum of all weights bounds W+, the sum"
+                        + " of 1/w over the switchable edges bounds W-); give more time (--seconds), or analyze the"
+                        + " scenario";
             } else if (!ev.complete) {
                 finished = true;
                 finalStatus = OptimizationResult.Status.BUDGET_REACHED;

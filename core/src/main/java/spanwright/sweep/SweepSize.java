@@ -10,6 +10,7 @@ import spanwright.analysis.StructuralAnalysis;
 import spanwright.analysis.Summary;
 import spanwright.analysis.VariableSymmetry;
 import spanwright.domain.InputDomain;
+import spanwright.model.Deadline;
 import spanwright.model.ScenarioException;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
@@ -54,8 +55,11 @@ public final class SweepSize {
     private CandidateInputs candidates;
     private Scenario scenario;
     private boolean prepared;
+    /** The per-size time budgets (--seconds): a fresh deadline for a number of milliseconds. */
+    private final java.util.function.LongFunction<Deadline> budget;
 
-    private SweepSize(Family family, int size, SweepOptions options) {
+    private SweepSize(Family family, int size, SweepOptions options, java.util.function.LongFunction<Deadline> budget) {
+        this.budget = budget;
         this.family = family;
         this.size = size;
         this.options = options;
@@ -63,7 +67,12 @@ public final class SweepSize {
 
     /** Builds the instance of {@code size} and decides how its inputs will be evaluated. Cheap. */
     public static SweepSize build(Family family, int size, SweepOptions options) {
-        SweepSize s = new SweepSize(family, size, options);
+        return build(family, size, options, Deadline::after);
+    }
+
+    /** With the deadlines of the budgeted steps made by {@code budget} (tests expire them by checks). */
+    static SweepSize build(Family family, int size, SweepOptions options, java.util.function.LongFunction<Deadline> budget) {
+        SweepSize s = new SweepSize(family, size, options, budget);
         s.metadata.put("size", size);
         long t0 = System.nanoTime();
         try {
@@ -233,7 +242,9 @@ public final class SweepSize {
             }
         }
         if (method == SweepOptions.Method.STRUCTURE) {
-            StructuralAnalysis.Reduction red = StructuralAnalysis.reduction(sc, StructuralAnalysis.DEFAULT_DIAGRAM_NODES);
+            // the diagram check gets the per-size time (--seconds) of its own, like the optimiser
+            StructuralAnalysis.Reduction red = StructuralAnalysis.reduction(sc, StructuralAnalysis.DEFAULT_DIAGRAM_NODES,
+                    budget.apply(options.optimizeMillis));
             Map<String, Object> rm = new LinkedHashMap<>();
             rm.put("checked", red.correct() != null);
             rm.put("correct", red.correct());
@@ -307,8 +318,8 @@ public final class SweepSize {
                 .withMode(method == SweepOptions.Method.STRUCTURE ? OptimizerOptions.Mode.WORKING_SET
                         : OptimizerOptions.Mode.DOMAIN);
         long deadline = System.currentTimeMillis() + options.optimizeMillis;
-        OptimizationResult r = WeightOptimizer.optimize(sc, candidates, opt, null);
-        boolean timeUp = System.currentTimeMillis() >= deadline
+        OptimizationResult r = WeightOptimizer.optimize(sc, candidates, opt, null, budget.apply(options.optimizeMillis));
+        boolean timeUp = (System.currentTimeMillis() >= deadline || r.cut != null)
                 && r.status == OptimizationResult.Status.BUDGET_REACHED && r.iterations < options.optimizeIterations;
         o.put("status", timeUp ? "time-budget-reached" : r.status.name().toLowerCase().replace('_', '-'));
         o.put("iterations", r.iterations);
@@ -316,6 +327,13 @@ public final class SweepSize {
         o.put("starts", r.starts);
         o.put("initialComplexity", r.initialComplexity);
         o.put("complexity", r.complexity);
+        if (!r.exact) {
+            o.put("exact", false);
+            o.put("complexityUpper", r.complexityUpper());
+        }
+        if (r.cut != null) {
+            o.put("cut", r.cut);
+        }
         o.put("weightGroups", groups(sc));
         if (r.method.equals("working-set")) {
             o.put("mode", "working set");
@@ -333,15 +351,26 @@ public final class SweepSize {
         step("optimize", t0, 16L * units + 64L * sc.edges().size());
     }
 
-    /** Exact W₊, W₋ of the final weights by the structural engine, into the metadata (key {@code structure}). */
+    /**
+     * Exact W₊, W₋ of the final weights by the structural engine, into the metadata (key
+     * {@code structure}), within the per-size time (--seconds) of its own; when that runs out the
+     * sides are certified intervals and {@code cut} says what was cut.
+     */
     private void structural() {
         StructuralAnalysis.Result r = StructuralAnalysis.worstCases(scenario, StructuralAnalysis.DEFAULT_STATES,
-                StructuralAnalysis.DEFAULT_NODES);
+                StructuralAnalysis.DEFAULT_NODES, budget.apply(options.optimizeMillis));
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("exact", r.exact());
         m.put("positive", side(r.positive()));
         m.put("negative", side(r.negative()));
         m.put("complexity", Double.isNaN(r.complexity()) ? null : (Object) r.complexity());
+        if (!r.exact()) {
+            double up = r.complexityUpper();
+            m.put("complexityUpper", Double.isNaN(up) || Double.isInfinite(up) ? null : (Object) up);
+        }
+        if (r.cut() != null) {
+            m.put("cut", r.cut() + " (this size's numbers then depend on the machine's speed)");
+        }
         metadata.put("structure", m);
     }
 
@@ -484,6 +513,10 @@ public final class SweepSize {
                 neg.put("worst", sn.get("worst"));
                 row.put("negative", neg);
                 row.put("complexity", sm.get("complexity"));
+                if (Boolean.FALSE.equals(sm.get("exact"))) {
+                    row.put("exact", false);
+                    row.put("complexityUpper", sm.get("complexityUpper"));
+                }
                 return row;
             }
             row.put("complexity", null);
