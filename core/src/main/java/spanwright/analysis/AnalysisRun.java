@@ -83,6 +83,28 @@ public final class AnalysisRun {
     }
 
     /**
+     * Processes inputs one at a time until the domain is done or {@code deadline} has passed (one
+     * check per input).
+     *
+     * @return true when the whole domain has been processed
+     */
+    public boolean stepWithin(spanwright.model.Deadline deadline) {
+        while (!done() && !deadline.passed()) {
+            step(1);
+        }
+        return done();
+    }
+
+    /**
+     * The {@link Summary} of the inputs processed so far (the first {@link #processed} in input
+     * order): for a run its time budget cut, what is known — maxima over those inputs (lower ends
+     * of W₊ and W₋) and the counterexamples among them.
+     */
+    public Summary soFar() {
+        return summary.build();
+    }
+
+    /**
      * The result; requires {@link #done()}. W± is the true maximum; the worst input is the first
      * (in input order) whose value is within the relative tie tolerance of it (see {@link Summary}).
      */

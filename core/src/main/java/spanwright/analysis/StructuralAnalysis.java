@@ -157,6 +157,15 @@ public final class StructuralAnalysis {
         return run(sc, DEFAULT_STATES, DEFAULT_NODES, DEFAULT_DIAGRAM_NODES, DEFAULT_SECONDS, true, deadline);
     }
 
+    /**
+     * Runs with the given budgets, {@code seconds} for each branch-and-bound side at most, within the
+     * time budget {@code deadline} for the whole analysis (see {@link #run(Scenario, Deadline)}).
+     */
+    public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes, double seconds,
+            Deadline deadline) {
+        return run(sc, maxStates, maxNodes, maxDiagramNodes, seconds, true, deadline);
+    }
+
     /** Runs with the given budgets and {@link #DEFAULT_SECONDS}. */
     public static Result run(Scenario sc, long maxStates, long maxNodes, long maxDiagramNodes) {
         return run(sc, maxStates, maxNodes, maxDiagramNodes, DEFAULT_SECONDS);

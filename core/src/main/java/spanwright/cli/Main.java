@@ -175,8 +175,8 @@ public final class Main {
                 + "      enumerated; beyond, W+ and W- come from the graph's structure (heaviest path and bond,\n"
                 + "      branch and bound, decision diagrams). With no FILE, the built-in default scenario.\n"
                 + "      --json: machine-readable; --inputs: every input's row (enumeration only);\n"
-                + "      --input BITS: one input's witness, at any size; --seconds: branch and bound's time per\n"
-                + "      side (default 30), after which it reports a certified interval.\n"
+                + "      --input BITS: one input's witness, at any size; --seconds: time budget of the whole\n"
+                + "      analysis; what it cuts is reported as such (certified intervals, inputs not reached).\n"
                 + "      Runs longer than 2 s print progress lines on stderr (every 5 s or so); --quiet: none\n"
                 + "      (the same for optimize, bounds, build and simulate).\n"
                 + "  optimize [FILE] [--starts K] [--seed S] [--iterations N] [--seconds T] [--tie literal]\n"
@@ -231,7 +231,7 @@ public final class Main {
         String file = null;
         Analysis.Method method = Analysis.Method.AUTO;
         String input = null;
-        double seconds = spanwright.analysis.StructuralAnalysis.DEFAULT_SECONDS;
+        double seconds = Double.POSITIVE_INFINITY; // no budget for the whole analysis unless asked
         for (int i = 0; i < args.size(); i++) {
             String a = args.get(i);
             if (a.equals("--json")) {
@@ -288,17 +288,26 @@ public final class Main {
         if (inputs) {
             Analysis.checkListable(spanwright.domain.InputDomain.of(sc).size()); // before the work
         }
-        AnalysisResult r;
+        spanwright.model.Deadline deadline = spanwright.model.Deadline.afterSeconds(seconds);
+        spanwright.analysis.AnalysisRun run;
         try (Progress progress = Progress.start("analyze", err, quiet)) {
             progress.phase("listing the domain");
-            spanwright.analysis.AnalysisRun run = Analysis.start(sc);
+            run = Analysis.start(sc);
             progress.phase("enumerating inputs (R or C of each)");
             progress.count(0, run.total());
-            while (!run.step(ENUMERATION_CHUNK)) {
+            while (!run.done() && !deadline.passed()) {
+                // one deadline check per input (as stepWithin), a progress line per chunk
+                long chunkEnd = run.processed() + ENUMERATION_CHUNK;
+                while (!run.done() && run.processed() < chunkEnd && !deadline.passed()) {
+                    run.step(1);
+                }
                 progress.count(run.processed(), run.total());
             }
-            r = run.result();
         }
+        if (!run.done()) {
+            return AnalyzeMore.partial(sc, run, seconds, json, out);
+        }
+        AnalysisResult r = run.result();
         if (json) {
             Map<String, Object> m = ResultJson.analysis(r, inputs);
             out.println(Json.writePretty(m).trim());

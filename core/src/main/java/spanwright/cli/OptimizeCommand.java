@@ -105,7 +105,7 @@ final class OptimizeCommand {
             }
             out.println(Json.writePretty(m).trim());
         } else {
-            out.print(summary(r, output, standing));
+            out.print(summary(r, output));
         }
         return 0;
     }
@@ -125,7 +125,8 @@ final class OptimizeCommand {
         return mask >= 0 ? Inputs.format(mask, n) : cert == null ? "—" : cert.input;
     }
 
-    private static String summary(OptimizationResult r, String output, String standing) {
+    static String summary(OptimizationResult r, String output) {
+        String standing = r.standing;
         Scenario sc = r.scenario;
         int n = sc.variableCount();
         StringBuilder sb = new StringBuilder();

@@ -48,6 +48,9 @@ final class StructureText {
                 + (Boolean.FALSE.equals(rd.correct()) ? " — " + Analysis.notABound(String.valueOf(rd.counterexamples()))
                         : "")));
         sb.append(Main.row("how", 12, r.method()));
+        if (r.cut() != null) {
+            sb.append(Main.row("cut", 12, r.cut()));
+        }
         sb.append("  note: ").append(Normalisation.CONVENTION).append(".\n");
         sb.append("  caution: ").append(Normalisation.CAUTION).append(".\n");
         return sb.toString();

@@ -236,7 +236,7 @@ public final class ResultJson {
         return Json.writePretty(doc);
     }
 
-    static Object num(double v) {
+    public static Object num(double v) {
         return Double.isNaN(v) || Double.isInfinite(v) ? Json.NULL : (Object) Double.valueOf(v);
     }
 }

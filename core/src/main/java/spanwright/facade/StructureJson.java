@@ -46,6 +46,9 @@ public final class StructureJson {
             m.put("complexityNote", Analysis.notABound(String.valueOf(rd.counterexamples())));
         }
         m.put("exact", r.exact());
+        if (r.cut() != null) {
+            m.put("cut", r.cut());
+        }
         m.put("convention", Normalisation.CONVENTION);
         m.put("caution", Normalisation.CAUTION);
         return m;

@@ -570,10 +570,7 @@ public final class WeightOptimizer {
                             + " inputs";
                 } else {
                     AnalysisRun run = Analysis.start(out);
-                    while (!run.done() && !deadline.passed()) {
-                        run.step(1);
-                    }
-                    if (run.done()) {
+                    if (run.stepWithin(deadline)) {
                         AnalysisResult r = run.result();
                         Boolean ok = r.correct();
                         return new OptimizationResult(finalStatus, out, initial, r.complexity(), r.maxResistance(),
