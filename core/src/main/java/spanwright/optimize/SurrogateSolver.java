@@ -19,7 +19,9 @@ import spanwright.model.Deadline;
  * Newton steps (EJML Cholesky) with Armijo backtracking. A tiny proximal term 10⁻¹⁰·|u − u₀|²/2
  * keeps the minimiser finite along directions that do not change S (the common scale, groups that
  * carry neither current nor charge). Steps are capped at 3 in each coordinate. Cost per Newton
- * step O(K·G²) for K active inputs and G free groups.
+ * step O(K·G² + G³) for K active inputs and G free groups with the dense Cholesky; from
+ * {@link #LOW_RANK_MIN_GROUPS} groups, when K is below G/2, O(G·K² + K³) with the Hessian kept as
+ * a diagonal plus rank-one terms (see {@link LowRank}).
  *
  * <p><b>Mutable, single-threaded</b> (owns its EJML workspaces).
  */
@@ -76,7 +78,7 @@ final class SurrogateSolver {
             e[k] = Math.exp(u[k]);
             einv[k] = 1.0 / e[k];
         }
-        double v = side(a, e, tau, 1.0, grad, hess) + side(b, einv, tau, -1.0, grad, hess);
+        double v = side(a, e, tau, 1.0, grad, hess, null) + side(b, einv, tau, -1.0, grad, hess, null);
         for (int k = 0; k < g; k++) {
             if (free[k]) {
                 double d = u[k] - u0[k];
@@ -102,7 +104,8 @@ final class SurrogateSolver {
      * τ·LSE over rows r of log(Σ_g c_rg · scale_g)/τ; adds gradient (sign ±1 for e^{±u}) and
      * Hessian contributions.
      */
-    private double side(double[][] c, double[] scale, double tau, double sign, double[] grad, double[][] hess) {
+    private double side(double[][] c, double[] scale, double tau, double sign, double[] grad, double[][] hess,
+            LowRank lr) {
         int rows = c.length;
         int g = groups;
         double[] l = new double[rows];
@@ -136,6 +139,19 @@ final class SurrogateSolver {
             for (int k = 0; k < g; k++) {
                 pi[k] = c[r][k] * scale[k] / s;
             }
+            if (lr != null) {
+                // the same Hessian as below, kept as diagonal + w (1/τ − 1) π πᵀ
+                double[] col = new double[g];
+                for (int k = 0; k < g; k++) {
+                    if (free[k] && pi[k] != 0) {
+                        mean[k] += w * pi[k];
+                        lr.diag[k] += w * pi[k];
+                        col[k] = pi[k];
+                    }
+                }
+                lr.add(col, w * (1.0 / tau - 1.0));
+                continue;
+            }
             for (int k = 0; k < g; k++) {
                 if (!free[k] || pi[k] == 0) {
                     continue;
@@ -150,6 +166,17 @@ final class SurrogateSolver {
                 }
             }
         }
+        if (lr != null) {
+            double[] col = new double[g];
+            for (int k = 0; k < g; k++) {
+                if (free[k]) {
+                    grad[k] += sign * mean[k];
+                    col[k] = mean[k];
+                }
+            }
+            lr.add(col, -1.0 / tau);
+            return value;
+        }
         for (int k = 0; k < g; k++) {
             if (!free[k]) {
                 continue;
@@ -163,6 +190,125 @@ final class SurrogateSolver {
         }
         return value;
     }
+
+    /**
+     * The Hessian as a diagonal plus a sum of rank-one terms c_j v_j v_jᵀ (one per row that carries
+     * weight in the smoothed maximum, and one for each side's mean): the form the Hessian of a
+     * log-sum-exp of affine functions has (Boyd &amp; Vandenberghe, "Convex Optimization", 2004,
+     * §3.1.5). With K terms and G groups a Newton step then costs O(G·K² + K³) by the Woodbury
+     * identity (Golub &amp; Van Loan, "Matrix Computations", 4th ed., 2013, §2.1.4) instead of
+     * O(G³) for the dense Cholesky, so one Newton iteration stays short at thousands of groups.
+     */
+    private static final class LowRank {
+        final double[] diag;
+        final java.util.List<double[]> cols = new java.util.ArrayList<>();
+        final java.util.List<Double> coef = new java.util.ArrayList<>();
+
+        LowRank(int g) {
+            diag = new double[g];
+        }
+
+        void add(double[] col, double c) {
+            cols.add(col);
+            coef.add(c);
+        }
+    }
+
+    /** Value with the gradient and the low-rank Hessian (see {@link LowRank}). */
+    private double valueLowRank(double[][] a, double[][] b, double[] u, double[] u0, double tau, double[] grad,
+            LowRank lr) {
+        int g = groups;
+        double[] e = new double[g];
+        double[] einv = new double[g];
+        for (int k = 0; k < g; k++) {
+            e[k] = Math.exp(u[k]);
+            einv[k] = 1.0 / e[k];
+        }
+        double v = side(a, e, tau, 1.0, grad, null, lr) + side(b, einv, tau, -1.0, grad, null, lr);
+        for (int k = 0; k < g; k++) {
+            if (free[k]) {
+                double d = u[k] - u0[k];
+                v += 0.5 * PROX * d * d;
+                grad[k] += PROX * d;
+                lr.diag[k] += PROX;
+                double over = Math.abs(u[k] - centre) - BOX;
+                if (over > 0) {
+                    v += 0.5 * WALL * over * over;
+                    grad[k] += WALL * over * Math.signum(u[k] - centre);
+                    lr.diag[k] += WALL;
+                }
+            }
+        }
+        return v;
+    }
+
+    /**
+     * Solves (D + damping·I + Σ c_j v_j v_jᵀ) s = −grad over the free groups by the Woodbury
+     * identity in the form (I + C Vᵀ D⁻¹ V) y = C Vᵀ D⁻¹ r, s = D⁻¹ (r − V y), which needs no 1/c_j.
+     *
+     * @return false when the small system is singular or the step is not finite
+     */
+    private static boolean solveLowRank(LowRank lr, double[] grad, int[] freeIdx, int nf, double damping,
+            DMatrixRMaj step) {
+        int k = lr.cols.size();
+        double[] dinv = new double[nf];
+        double[] r = new double[nf];
+        for (int i = 0; i < nf; i++) {
+            dinv[i] = 1.0 / (lr.diag[freeIdx[i]] + damping);
+            r[i] = -grad[freeIdx[i]];
+        }
+        DMatrixRMaj m = new DMatrixRMaj(k, k);
+        DMatrixRMaj rhs = new DMatrixRMaj(k, 1);
+        DMatrixRMaj y = new DMatrixRMaj(k, 1);
+        for (int p = 0; p < k; p++) {
+            double[] vp = lr.cols.get(p);
+            double cp = lr.coef.get(p);
+            double t = 0;
+            for (int i = 0; i < nf; i++) {
+                t += vp[freeIdx[i]] * dinv[i] * r[i];
+            }
+            rhs.set(p, 0, cp * t);
+            for (int q = 0; q < k; q++) {
+                double[] vq = lr.cols.get(q);
+                double dot = 0;
+                for (int i = 0; i < nf; i++) {
+                    double x = vp[freeIdx[i]];
+                    if (x != 0) {
+                        dot += x * dinv[i] * vq[freeIdx[i]];
+                    }
+                }
+                m.set(p, q, (p == q ? 1 : 0) + cp * dot);
+            }
+        }
+        LinearSolverDense<DMatrixRMaj> lu = LinearSolverFactory_DDRM.lu(k);
+        if (k > 0) {
+            if (!lu.setA(m)) {
+                return false;
+            }
+            lu.solve(rhs, y);
+        }
+        for (int i = 0; i < nf; i++) {
+            double t = r[i];
+            for (int p = 0; p < k; p++) {
+                t -= lr.cols.get(p)[freeIdx[i]] * y.get(p, 0);
+            }
+            double si = dinv[i] * t;
+            if (!Double.isFinite(si)) {
+                return false;
+            }
+            step.set(i, 0, si);
+        }
+        return true;
+    }
+
+    /** Forces the dense (false) or the low-rank (true) Newton solve, or lets the size choose (null). For tests. */
+    void forceForm(Boolean lowRank) {
+        this.forcedLowRank = lowRank;
+    }
+
+    private Boolean forcedLowRank;
+    /** Free groups from which the low-rank Newton solve is used when it has few enough terms. */
+    static final int LOW_RANK_MIN_GROUPS = 200;
 
     /**
      * Minimiser of the surrogate, starting from {@code u0} (fixed groups keep their values). When
@@ -188,25 +334,39 @@ final class SurrogateSolver {
         if (nf == 0) {
             return u;
         }
-        LinearSolverDense<DMatrixRMaj> chol = LinearSolverFactory_DDRM.symmPosDef(nf);
-        DMatrixRMaj h = new DMatrixRMaj(nf, nf);
-        DMatrixRMaj rhs = new DMatrixRMaj(nf, 1);
+        // at most one rank-one term per row plus one mean per side
+        int terms = a.length + b.length + 2;
+        boolean lowRank = forcedLowRank != null ? forcedLowRank : nf >= LOW_RANK_MIN_GROUPS && 2 * terms < nf;
+        LinearSolverDense<DMatrixRMaj> chol = lowRank ? null : LinearSolverFactory_DDRM.symmPosDef(nf);
+        DMatrixRMaj h = lowRank ? null : new DMatrixRMaj(nf, nf);
+        DMatrixRMaj rhs = lowRank ? null : new DMatrixRMaj(nf, 1);
         DMatrixRMaj step = new DMatrixRMaj(nf, 1);
         double[] grad = new double[g];
-        double[][] hess = new double[g][g];
+        double[][] hess = lowRank ? null : new double[g][g];
         for (double tau = 5e-2; tau >= 1e-10; tau *= 0.1) {
             for (int it = 0; it < 40; it++) {
                 if (deadline != null && deadline.passed()) {
                     return clamp(u); // at most one Newton iteration past the budget
                 }
                 java.util.Arrays.fill(grad, 0);
-                for (double[] row : hess) {
-                    java.util.Arrays.fill(row, 0);
+                double v;
+                LowRank lr = null;
+                if (lowRank) {
+                    lr = new LowRank(g);
+                    v = valueLowRank(a, b, u, u0, tau, grad, lr);
+                } else {
+                    for (double[] row : hess) {
+                        java.util.Arrays.fill(row, 0);
+                    }
+                    v = value(a, b, u, u0, tau, grad, hess);
                 }
-                double v = value(a, b, u, u0, tau, grad, hess);
                 double damping = 1e-12;
                 boolean solved = false;
-                for (int attempt = 0; attempt < 8 && !solved; attempt++) {
+                for (int attempt = 0; attempt < 8 && !solved && lowRank; attempt++) {
+                    solved = solveLowRank(lr, grad, freeIdx, nf, damping, step);
+                    damping = Math.max(damping * 100, 1e-8);
+                }
+                for (int attempt = 0; attempt < 8 && !solved && !lowRank; attempt++) {
                     for (int i = 0; i < nf; i++) {
                         for (int j = 0; j < nf; j++) {
                             h.set(i, j, hess[freeIdx[i]][freeIdx[j]] + (i == j ? damping : 0));
