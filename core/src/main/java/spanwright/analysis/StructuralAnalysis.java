@@ -226,12 +226,14 @@ public final class StructuralAnalysis {
             kind = promised ? "a promise: every leaf tested against it" : "shared variables or negated literals";
         }
         List<String> cut = new ArrayList<>();
-        // W+ may use a share of the time left, W- a share of what then remains, the check the rest
-        Deadline first = deadline.share(check ? 1.0 / 3 : 1.0 / 2);
+        // W+ may use a share of the time left, W- a share of what then remains, the check (when it
+        // builds diagrams) the rest
+        boolean diagrams = check && sc.function() != null && !(sc.connectivity() != null && sc.connectivity().ownGraph());
+        Deadline first = deadline.share(diagrams ? 1.0 / 3 : 1.0 / 2);
         Side positive = host && !anyAlways ? pathSide(sc, maxStates, maxNodes, seconds, first, cut)
                 : branchAndBound(sc, true, maxNodes, seconds, host ? "always-present edges make minimal positive"
                         + " inputs more than paths: " : "", first, cut);
-        Deadline second = deadline.share(check ? 1.0 / 2 : 1.0);
+        Deadline second = deadline.share(diagrams ? 1.0 / 2 : 1.0);
         Side negative = host ? bondSide(sc, maxStates, maxNodes, seconds, second, cut)
                 : branchAndBound(sc, false, maxNodes, seconds, "", second, cut);
         Reduction reduction = check ? reduction(sc, maxDiagramNodes, deadline)

@@ -28,7 +28,7 @@ final class AnalyzeMore {
     private AnalyzeMore() {}
 
     static int structure(Scenario sc, Analysis.Choice choice, boolean json, boolean inputs, double seconds,
-            PrintStream out, PrintStream err, boolean quiet) {
+            Deadline budget, PrintStream out, PrintStream err, boolean quiet) {
         if (inputs) {
             throw new Main.UsageException("analyze: --inputs lists every input, and this scenario has 2^"
                     + sc.variableCount() + " of them; the structural method shows the worst inputs instead (drop"
@@ -44,7 +44,7 @@ final class AnalyzeMore {
                             + spanwright.io.NumberText.sig(seconds, 4) + " s in all)");
             r = StructuralAnalysis.run(sc, StructuralAnalysis.DEFAULT_STATES,
                     StructuralAnalysis.DEFAULT_NODES, StructuralAnalysis.DEFAULT_DIAGRAM_NODES,
-                    Double.isInfinite(seconds) ? StructuralAnalysis.DEFAULT_SECONDS : seconds, Deadline.afterSeconds(seconds));
+                    Double.isInfinite(seconds) ? StructuralAnalysis.DEFAULT_SECONDS : seconds, budget);
         }
         if (json) {
             out.println(Json.writePretty(StructureJson.analysis(r, choice)).trim());

@@ -32,6 +32,9 @@ final class Bench {
         if (!args.isEmpty() && args.get(0).equals("optimize-structure")) {
             return BenchStructure.optimize(args.subList(1, args.size()), out);
         }
+        if (!args.isEmpty() && args.get(0).equals("budget")) {
+            return BenchBudget.run(args.subList(1, args.size()), out);
+        }
         if (!args.isEmpty() && args.get(0).equals("structure")) {
             return BenchStructure.run(args.subList(1, args.size()), out);
         }

@@ -274,6 +274,8 @@ public final class Main {
                 throw new UsageException("analyze: one FILE at most (got " + file + " and " + a + ")");
             }
         }
+        // --seconds counts from here: reading the scenario is part of the command's time
+        spanwright.model.Deadline budget = spanwright.model.Deadline.afterSeconds(seconds);
         Scenario sc = ScenarioReader.read(readScenarioText(file));
         for (String w : sc.warnings()) {
             err.println("spanwright: warning: " + w);
@@ -283,22 +285,21 @@ public final class Main {
         }
         Analysis.Choice choice = Analysis.choose(sc, method);
         if (choice.method() == Analysis.Method.STRUCTURE) {
-            return AnalyzeMore.structure(sc, choice, json, inputs, seconds, out, err, quiet);
+            return AnalyzeMore.structure(sc, choice, json, inputs, seconds, budget, out, err, quiet);
         }
         if (inputs) {
             Analysis.checkListable(spanwright.domain.InputDomain.of(sc).size()); // before the work
         }
-        spanwright.model.Deadline deadline = spanwright.model.Deadline.afterSeconds(seconds);
         spanwright.analysis.AnalysisRun run;
         try (Progress progress = Progress.start("analyze", err, quiet)) {
             progress.phase("listing the domain");
             run = Analysis.start(sc);
             progress.phase("enumerating inputs (R or C of each)");
             progress.count(0, run.total());
-            while (!run.done() && !deadline.passed()) {
+            while (!run.done() && !budget.passed()) {
                 // one deadline check per input (as stepWithin), a progress line per chunk
                 long chunkEnd = run.processed() + ENUMERATION_CHUNK;
-                while (!run.done() && run.processed() < chunkEnd && !deadline.passed()) {
+                while (!run.done() && run.processed() < chunkEnd && !budget.passed()) {
                     run.step(1);
                 }
                 progress.count(run.processed(), run.total());

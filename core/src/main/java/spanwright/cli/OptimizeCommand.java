@@ -9,6 +9,7 @@ import spanwright.facade.JsonFacade;
 import spanwright.io.NumberText;
 import spanwright.facade.ResultJson;
 import spanwright.io.ScenarioReader;
+import spanwright.model.Deadline;
 import spanwright.model.Edge;
 import spanwright.model.Inputs;
 import spanwright.model.Scenario;
@@ -77,9 +78,11 @@ final class OptimizeCommand {
             }
         }
         OutputFiles.refuseClashes("optimize", java.util.Arrays.asList(file), java.util.Arrays.asList(output));
+        OptimizerOptions opt = JsonFacade.optimizerOptions(Json.write(options));
+        // the budget counts from here: reading the scenario is part of the command's time
+        Deadline deadline = Deadline.after(opt.maxMillis());
         String text = Main.readScenarioText(file);
         Scenario sc = ScenarioReader.read(text);
-        OptimizerOptions opt = JsonFacade.optimizerOptions(Json.write(options));
         OptimizationResult r;
         String standing;
         try (Progress progress = Progress.start("optimize", err, quiet)) {
@@ -87,11 +90,11 @@ final class OptimizeCommand {
             Object t = options.get("seconds");
             String of = k == null ? "" : " of " + Math.round((Double) k);
             progress.phase("optimising edge weights" + (t == null ? "" : " (time budget " + Math.round((Double) t) + " s)"));
-            r = WeightOptimizer.optimize(sc, opt, (start, iteration, complexity) -> {
+            r = WeightOptimizer.optimize(sc, null, opt, (start, iteration, complexity) -> {
                 progress.detail("start " + (start + 1) + of + ", step " + iteration
                         + ", sqrt(W+ W-) = " + NumberText.sig(complexity, 6));
                 return true;
-            });
+            }, deadline);
             standing = r.standing; // from the optimiser's own check: no second, unbudgeted pass
         }
         if (output != null) {

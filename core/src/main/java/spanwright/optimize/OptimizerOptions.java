@@ -105,4 +105,9 @@ public final class OptimizerOptions {
     public Mode mode() {
         return mode;
     }
+
+    /** The time budget of the whole call, in milliseconds. */
+    public long maxMillis() {
+        return maxMillis;
+    }
 }
