@@ -68,9 +68,12 @@ final class SurrogateSolver {
         return r;
     }
 
-    /** Value of the smoothed surrogate and, when {@code grad} non-null, its gradient and Hessian. */
+    /**
+     * Value of the smoothed surrogate and, when {@code grad} non-null, its gradient and its Hessian:
+     * dense into {@code hess}, or as a diagonal plus rank-one terms into {@code lr} (one of the two).
+     */
     private double value(double[][] a, double[][] b, double[] u, double[] u0, double tau, double[] grad,
-            double[][] hess) {
+            double[][] hess, LowRank lr) {
         int g = groups;
         double[] e = new double[g];
         double[] einv = new double[g];
@@ -78,7 +81,7 @@ final class SurrogateSolver {
             e[k] = Math.exp(u[k]);
             einv[k] = 1.0 / e[k];
         }
-        double v = side(a, e, tau, 1.0, grad, hess, null) + side(b, einv, tau, -1.0, grad, hess, null);
+        double v = side(a, e, tau, 1.0, grad, hess, lr) + side(b, einv, tau, -1.0, grad, hess, lr);
         for (int k = 0; k < g; k++) {
             if (free[k]) {
                 double d = u[k] - u0[k];
@@ -88,11 +91,12 @@ final class SurrogateSolver {
                     v += 0.5 * WALL * over * over;
                 }
                 if (grad != null) {
+                    double[] diag = lr != null ? lr.diag : hess[k]; // entry k: lr.diag[k] or hess[k][k]
                     grad[k] += PROX * d;
-                    hess[k][k] += PROX;
+                    diag[k] += PROX;
                     if (over > 0) {
                         grad[k] += WALL * over * Math.signum(u[k] - centre);
-                        hess[k][k] += WALL;
+                        diag[k] += WALL;
                     }
                 }
             }
@@ -214,34 +218,6 @@ final class SurrogateSolver {
         }
     }
 
-    /** Value with the gradient and the low-rank Hessian (see {@link LowRank}). */
-    private double valueLowRank(double[][] a, double[][] b, double[] u, double[] u0, double tau, double[] grad,
-            LowRank lr) {
-        int g = groups;
-        double[] e = new double[g];
-        double[] einv = new double[g];
-        for (int k = 0; k < g; k++) {
-            e[k] = Math.exp(u[k]);
-            einv[k] = 1.0 / e[k];
-        }
-        double v = side(a, e, tau, 1.0, grad, null, lr) + side(b, einv, tau, -1.0, grad, null, lr);
-        for (int k = 0; k < g; k++) {
-            if (free[k]) {
-                double d = u[k] - u0[k];
-                v += 0.5 * PROX * d * d;
-                grad[k] += PROX * d;
-                lr.diag[k] += PROX;
-                double over = Math.abs(u[k] - centre) - BOX;
-                if (over > 0) {
-                    v += 0.5 * WALL * over * over;
-                    grad[k] += WALL * over * Math.signum(u[k] - centre);
-                    lr.diag[k] += WALL;
-                }
-            }
-        }
-        return v;
-    }
-
     /**
      * Solves (D + damping·I + Σ c_j v_j v_jᵀ) s = −grad over the free groups by the Woodbury
      * identity in the form (I + C Vᵀ D⁻¹ V) y = C Vᵀ D⁻¹ r, s = D⁻¹ (r − V y), which needs no 1/c_j.
@@ -353,12 +329,12 @@ final class SurrogateSolver {
                 LowRank lr = null;
                 if (lowRank) {
                     lr = new LowRank(g);
-                    v = valueLowRank(a, b, u, u0, tau, grad, lr);
+                    v = value(a, b, u, u0, tau, grad, null, lr);
                 } else {
                     for (double[] row : hess) {
                         java.util.Arrays.fill(row, 0);
                     }
-                    v = value(a, b, u, u0, tau, grad, hess);
+                    v = value(a, b, u, u0, tau, grad, hess, null);
                 }
                 double damping = 1e-12;
                 boolean solved = false;
@@ -401,7 +377,7 @@ final class SurrogateSolver {
                     for (int i = 0; i < nf; i++) {
                         trial[freeIdx[i]] = u[freeIdx[i]] + scale * step.get(i, 0);
                     }
-                    double tv = value(a, b, trial, u0, tau, null, null);
+                    double tv = value(a, b, trial, u0, tau, null, null, null);
                     if (tv <= v + 1e-4 * scale * slope) {
                         moved = true;
                         break;
