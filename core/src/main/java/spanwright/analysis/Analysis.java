@@ -50,23 +50,6 @@ public final class Analysis {
                 + " (s-t connectivity differs from f there), so sqrt(W+ W-) bounds no algorithm for f";
     }
 
-    /**
-     * The reduction's standing for a caller about to use √(W₊W₋) (the weight search, the bounds
-     * comparison): {@link #notABound} when the graph does not decide f, otherwise null. Runs the
-     * reduction check by the method {@link #choose} picks (enumeration, or decision diagrams).
-     */
-    public static String standing(Scenario sc) {
-        if (sc.function() == null) {
-            return null;
-        }
-        if (choose(sc, Method.AUTO).method() == Method.STRUCTURE) {
-            StructuralAnalysis.Reduction r = StructuralAnalysis.reduction(sc, StructuralAnalysis.DEFAULT_DIAGRAM_NODES);
-            return Boolean.FALSE.equals(r.correct()) ? notABound(String.valueOf(r.counterexamples())) : null;
-        }
-        AnalysisResult r = run(sc);
-        return Boolean.FALSE.equals(r.correct()) ? notABound(Long.toString(r.counterexampleCount())) : null;
-    }
-
     /** Largest domain {@link Method#AUTO} enumerates: beyond it, structure is cheaper. */
     public static final int AUTO_ENUMERATION_VARIABLES = 20;
 
