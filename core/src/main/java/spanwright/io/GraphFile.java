@@ -178,6 +178,26 @@ public final class GraphFile {
     }
 
     /**
+     * A vertex's position from its attributes as the file keeps it: DOT's {@code pos}, GraphML's and
+     * GML's {@code x} and {@code y} (a CSV edge list has none); {@code {NaN, NaN}} when it has none
+     * or only half of one. Both readers (jgrapht-io's and ours) place vertices through here.
+     */
+    public static double[] position(Format format, Map<String, String> attrs) {
+        if (format == Format.DOT) {
+            double[] pos = dotPosition(attrs.get("pos"));
+            return pos != null ? pos : new double[] {Double.NaN, Double.NaN};
+        }
+        if (format != Format.CSV) {
+            double x = number(attrs.get("x"));
+            double y = number(attrs.get("y"));
+            if (!Double.isNaN(x) && !Double.isNaN(y)) {
+                return new double[] {x, y};
+            }
+        }
+        return new double[] {Double.NaN, Double.NaN};
+    }
+
+    /**
      * Graphviz's {@code pos} of a node, {@code "x,y"} or {@code "x,y!"} (points, y upwards), as
      * the scenario's x and y (y grows downwards, so it is negated); null when absent or not two
      * numbers.

@@ -134,22 +134,9 @@ public final class GraphFormats {
             labelsAreIds &= label != null && !label.isEmpty() && labels.add(label);
             attrs.add(a);
             index.put(ids.get(i), i);
-            x[i] = Double.NaN;
-            y[i] = Double.NaN;
-            if (format == GraphFile.Format.DOT) {
-                double[] pos = GraphFile.dotPosition(a.get("pos"));
-                if (pos != null) {
-                    x[i] = pos[0];
-                    y[i] = pos[1];
-                }
-            } else if (format != GraphFile.Format.CSV) {
-                x[i] = number(a.get("x"));
-                y[i] = number(a.get("y"));
-                if (Double.isNaN(x[i]) || Double.isNaN(y[i])) {
-                    x[i] = Double.NaN;
-                    y[i] = Double.NaN;
-                }
-            }
+            double[] p = GraphFile.position(format, a);
+            x[i] = p[0];
+            y[i] = p[1];
         }
         for (int i = 0; i < ids.size(); i++) {
             // a GML node's id is a number; networkx writes the vertex's name as its label

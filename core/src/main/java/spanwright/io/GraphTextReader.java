@@ -132,22 +132,9 @@ public final class GraphTextReader {
             Map<String, String> a = new LinkedHashMap<>(vertexAttributes.get(i));
             a.remove("ID");
             attrs.add(a);
-            x[i] = Double.NaN;
-            y[i] = Double.NaN;
-            if (format == GraphFile.Format.DOT) {
-                double[] pos = GraphFile.dotPosition(a.get("pos"));
-                if (pos != null) {
-                    x[i] = pos[0];
-                    y[i] = pos[1];
-                }
-            } else {
-                double px = GraphFile.number(a.get("x"));
-                double py = GraphFile.number(a.get("y"));
-                if (!Double.isNaN(px) && !Double.isNaN(py)) {
-                    x[i] = px;
-                    y[i] = py;
-                }
-            }
+            double[] p = GraphFile.position(format, a);
+            x[i] = p[0];
+            y[i] = p[1];
         }
         List<GraphFile.Link> links = new ArrayList<>();
         for (int i = 0; i < ends.size(); i++) {
