@@ -140,21 +140,7 @@
     timing.dataset.rate = "";
     timing.dataset.engine = state.engine;
     timing.dataset.method = "structure";
-    $("status").dataset.state = "ready";
-    $("status").textContent = "up to date";
-
-    P.buildView();
-    state.focus = -1;
-    const i = previousX === null ? -1 : P.indexOfCode(P.codeOf(previousX));
-    if (i >= 0) P.setFocus(i, true); else P.clearFocus();
-    state.serial++;
-    document.body.dataset.analysis = "ready";
-    document.body.dataset.analysisSerial = String(state.serial);
-    P.hooks.analysis.forEach(function (h) { h(state.analysis); });
-    if (state.firstRenderMs === null) {
-      state.firstRenderMs = performance.now();
-      document.body.dataset.firstRenderMs = String(Math.round(state.firstRenderMs));
-    }
+    P.analysisShown(previousX, null);
   }
 
   /** The reduction verdict in the engine's terms (by construction, holds, fails, not checked). */

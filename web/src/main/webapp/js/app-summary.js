@@ -143,16 +143,19 @@
     timing.dataset.ms = String(ms);
     timing.dataset.rate = String(rate);
     timing.dataset.engine = state.engine;
+    P.analysisShown(previousX, drawHistogram);
+  }
+
+  /** The end of showing an analysis, either method's: status, view, the focus kept where the
+   *  previous input still is, the serial and the hooks. {@code extra} runs after the view is built. */
+  P.analysisShown = function (previousX, extra) {
     $("status").dataset.state = "ready";
     $("status").textContent = "up to date";
     P.buildView();
-    drawHistogram();
+    if (extra) extra();
     state.focus = -1;
-    if (previousX !== null) {
-      const i = P.indexOfCode(P.codeOf(previousX));
-      if (i >= 0) P.setFocus(i, true);
-      else P.clearFocus();
-    } else P.clearFocus();
+    const i = previousX === null ? -1 : P.indexOfCode(P.codeOf(previousX));
+    if (i >= 0) P.setFocus(i, true); else P.clearFocus();
     state.serial++;
     document.body.dataset.analysis = "ready";
     document.body.dataset.analysisSerial = String(state.serial);
@@ -161,7 +164,7 @@
       state.firstRenderMs = performance.now();
       document.body.dataset.firstRenderMs = String(Math.round(state.firstRenderMs));
     }
-  }
+  };
 
   // ------------------------------------------------------------------ histogram
 
