@@ -4,10 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -25,13 +22,10 @@ class BuildCommandTest {
     @TempDir
     Path dir;
 
+    /** Status, stdout and stderr of one run ({@link MainTest#run}). */
     private static String[] run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int status = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new String[] {Integer.toString(status), out.toString(StandardCharsets.UTF_8),
-            err.toString(StandardCharsets.UTF_8)};
+        MainTest.Run r = MainTest.run(args);
+        return new String[] {Integer.toString(r.status), r.out, r.err};
     }
 
     @Test

@@ -4,9 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Map;
@@ -28,13 +25,10 @@ class NotABoundTest {
             + "[{\"id\":\"s\"},{\"id\":\"t\"}],\"edges\":[{\"u\":\"s\",\"v\":\"t\",\"when\":\"a\"},"
             + "{\"u\":\"s\",\"v\":\"t\",\"when\":\"b\"}]}}";
 
+    /** Status, stdout and stderr of one run ({@link MainTest#run}). */
     private static String[] run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new String[] {Integer.toString(code), out.toString(StandardCharsets.UTF_8),
-            err.toString(StandardCharsets.UTF_8)};
+        MainTest.Run r = MainTest.run(args);
+        return new String[] {Integer.toString(r.status), r.out, r.err};
     }
 
     @Test

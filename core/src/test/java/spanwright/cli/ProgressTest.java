@@ -32,13 +32,10 @@ class ProgressTest {
         System.setProperty(Progress.EVERY_PROPERTY, "0");
     }
 
+    /** Status, stdout and stderr of one run ({@link MainTest#run}). */
     private static String[] run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int status = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new String[] {String.valueOf(status), out.toString(StandardCharsets.UTF_8),
-            err.toString(StandardCharsets.UTF_8)};
+        MainTest.Run r = MainTest.run(args);
+        return new String[] {Integer.toString(r.status), r.out, r.err};
     }
 
     @Test
