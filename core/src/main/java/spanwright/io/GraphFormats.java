@@ -284,8 +284,7 @@ public final class GraphFormats {
             // JGraphT writes graph attribute values as they are: quote them as DOT strings here
             Map<String, Attribute> m = new LinkedHashMap<>();
             for (Map.Entry<String, Attribute> a : graphAttributes(sc).entrySet()) {
-                m.put(a.getKey(), DefaultAttribute.createAttribute("\"" + a.getValue().getValue().replace("\\", "\\\\")
-                        .replace("\"", "\\\"") + "\""));
+                m.put(a.getKey(), DefaultAttribute.createAttribute(dotString(a.getValue().getValue(), "the title")));
             }
             return m;
         });
@@ -367,6 +366,20 @@ public final class GraphFormats {
                 java.util.Locale.ROOT))) {
             return id;
         }
-        return "\"" + id.replace("\\", "\\\\").replace("\"", "\\\"") + "\"";
+        return dotString(id, "vertex \"" + id + "\"");
+    }
+
+    /**
+     * {@code text} as a quoted DOT string. In DOT the only escape in a quoted string is {@code \"}
+     * (graphviz.org/doc/info/lang.html): a backslash before anything else stays as written, so
+     * backslashes are not doubled. A text ending in a backslash cannot be written (its closing
+     * quote would read as escaped) and is refused, naming {@code what}.
+     */
+    static String dotString(String text, String what) {
+        if (text.endsWith("\\")) {
+            throw new ScenarioException("export", "$", what + " ends with a backslash, which DOT cannot quote:"
+                    + " rename it, or export GraphML (--graphml), which can");
+        }
+        return "\"" + text.replace("\"", "\\\"") + "\"";
     }
 }
