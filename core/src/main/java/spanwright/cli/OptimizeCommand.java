@@ -23,11 +23,11 @@ import spanwright.optimize.WeightOptimizer;
  * (beyond enumeration, by a working set of worst inputs from the structural engine).
  */
 final class OptimizeCommand {
-    /** Accepted ranges (the engine takes at most 1,000 starts and 100,000 iterations). */
-    static final long MAX_STARTS = 1000;
-    static final long MAX_ITERATIONS = 100_000;
-    static final long MAX_SECONDS = 86_400;
-    static final long MAX_SEED = 1L << 53;
+    /** Accepted ranges: {@link OptimizerOptions}'s, shared with sweep and the JSON facade. */
+    static final long MAX_STARTS = OptimizerOptions.MAX_STARTS;
+    static final long MAX_ITERATIONS = OptimizerOptions.MAX_ITERATIONS;
+    static final long MAX_SECONDS = OptimizerOptions.MAX_SECONDS;
+    static final long MAX_SEED = OptimizerOptions.MAX_SEED;
 
     private OptimizeCommand() {}
 

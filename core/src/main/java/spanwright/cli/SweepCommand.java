@@ -17,6 +17,7 @@ import java.util.concurrent.atomic.AtomicLong;
 import spanwright.analysis.Summary;
 import spanwright.io.Json;
 import spanwright.model.ScenarioException;
+import spanwright.optimize.OptimizerOptions;
 import spanwright.sweep.BuiltInFamilies;
 import spanwright.sweep.Family;
 import spanwright.sweep.FamilyTemplate;
@@ -87,6 +88,11 @@ final class SweepCommand {
         return args.get(i);
     }
 
+    /** As {@link #whole(String, String, int)} with an upper end (the optimiser's ranges). */
+    static int whole(String v, String option, int min, long max) {
+        return (int) Main.whole("sweep", option, v, min, max);
+    }
+
     static int whole(String v, String option, int min) {
         try {
             int k = Integer.parseInt(v.trim());
@@ -140,17 +146,17 @@ final class SweepCommand {
                     break;
                 }
                 case "--iterations":
-                    a.options = a.options.withOptimizeIterations(whole(value(args, ++i, x), x, 0));
+                    a.options = a.options.withOptimizeIterations(whole(value(args, ++i, x), x, 0, OptimizerOptions.MAX_ITERATIONS));
                     a.repeat.add(x);
                     a.repeat.add(args.get(i));
                     break;
                 case "--seconds":
-                    a.options = a.options.withOptimizeMillis(1000L * whole(value(args, ++i, x), x, 1));
+                    a.options = a.options.withOptimizeMillis(1000L * whole(value(args, ++i, x), x, 1, OptimizerOptions.MAX_SECONDS));
                     a.repeat.add(x);
                     a.repeat.add(args.get(i));
                     break;
                 case "--starts":
-                    a.options = a.options.withStarts(whole(value(args, ++i, x), x, 1));
+                    a.options = a.options.withStarts(whole(value(args, ++i, x), x, 1, OptimizerOptions.MAX_STARTS));
                     a.repeat.add(x);
                     a.repeat.add(args.get(i));
                     break;

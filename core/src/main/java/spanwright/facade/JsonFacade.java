@@ -597,17 +597,26 @@ public final class JsonFacade {
                 opt = opt.withMode(mode);
                 continue;
             }
-            if (!(v instanceof Double) || (Double) v <= 0 || (Double) v != Math.rint((Double) v)) {
-                throw new ScenarioException("option", path, e.getKey() + " must be a whole number > 0");
+            long max;
+            switch (e.getKey()) {
+                case "starts": max = spanwright.optimize.OptimizerOptions.MAX_STARTS; break;
+                case "seed": max = spanwright.optimize.OptimizerOptions.MAX_SEED; break;
+                case "iterations": max = spanwright.optimize.OptimizerOptions.MAX_ITERATIONS; break;
+                case "seconds": max = spanwright.optimize.OptimizerOptions.MAX_SECONDS; break;
+                default:
+                    throw ScenarioReader.unknownOption(e.getKey(), "starts, seed, iterations, seconds, tie, mode");
+            }
+            // the command line's ranges (OptimizerOptions), refused rather than clamped
+            if (!(v instanceof Double) || (Double) v < 1 || (Double) v > max || (Double) v != Math.rint((Double) v)) {
+                throw new ScenarioException("option", path, e.getKey() + " must be a whole number from 1 to " + max
+                        + ", got " + ScenarioReader.show(v));
             }
             long k = (long) (double) (Double) v;
             switch (e.getKey()) {
-                case "starts": opt = opt.withStarts((int) Math.min(k, 1000)); break;
+                case "starts": opt = opt.withStarts((int) k); break;
                 case "seed": opt = opt.withSeed(k); break;
-                case "iterations": opt = opt.withMaxIterations((int) Math.min(k, 100000)); break;
-                case "seconds": opt = opt.withMaxMillis(k * 1000); break;
-                default:
-                    throw ScenarioReader.unknownOption(e.getKey(), "starts, seed, iterations, seconds, tie, mode");
+                case "iterations": opt = opt.withMaxIterations((int) k); break;
+                default: opt = opt.withMaxMillis(k * 1000); break;
             }
         }
         return opt;

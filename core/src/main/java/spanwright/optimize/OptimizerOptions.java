@@ -2,6 +2,15 @@ package spanwright.optimize;
 
 /** Budgets and choices for {@link WeightOptimizer}. Immutable; use the with… methods. */
 public final class OptimizerOptions {
+    /** Accepted ranges, the same for the command line (optimize, sweep) and the JSON facade. */
+    public static final int MAX_STARTS = 1000;
+    /** Most optimiser steps (or working-set rounds) a caller may ask for. */
+    public static final int MAX_ITERATIONS = 100_000;
+    /** Longest time budget a caller may give, in seconds (a day). */
+    public static final long MAX_SECONDS = 86_400;
+    /** Largest seed: 2^53, the largest whole number a JSON number holds exactly. */
+    public static final long MAX_SEED = 1L << 53;
+
     /** How edges share weights. */
     public enum Tie {
         /** every edge has its own weight (edges' {@code group} keys are still honoured) */
