@@ -91,16 +91,28 @@ public final class ExprParser {
      * Such text is never an expression (the parser would stop at its second character).
      */
     public static boolean looksLikeTruthTable(String text) {
-        String t = text == null ? "" : text.trim();
-        if (t.length() < 2) {
-            return false;
+        return tableDigits(text) != null;
+    }
+
+    /**
+     * The 0/1 characters of a truth table written with blanks or underscores between groups
+     * ({@code "0110 1001"}, {@code "0110_1001"}), or null when {@code text} is not such a string of
+     * at least two 0s and 1s.
+     */
+    public static String tableDigits(String text) {
+        if (text == null) {
+            return null;
         }
-        for (int i = 0; i < t.length(); i++) {
-            if (t.charAt(i) != '0' && t.charAt(i) != '1') {
-                return false;
+        StringBuilder d = new StringBuilder();
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            if (c == '0' || c == '1') {
+                d.append(c);
+            } else if (!(c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '_')) {
+                return null;
             }
         }
-        return true;
+        return d.length() < 2 ? null : d.toString();
     }
 
     /**
@@ -112,7 +124,7 @@ public final class ExprParser {
         if (!looksLikeTruthTable(text)) {
             return null;
         }
-        int len = text.trim().length();
+        int len = tableDigits(text).length();
         if ((len & (len - 1)) == 0) {
             return null;
         }
@@ -129,7 +141,7 @@ public final class ExprParser {
         }
         if (looksLikeTruthTable(text)) {
             String length = truthTableLengthProblem(text);
-            int len = text.trim().length();
+            int len = tableDigits(text).length();
             throw new ExprException(pos + 1, (length != null ? length + "; and here"
                     : "\"" + (len > 40 ? text.trim().substring(0, 37) + "…" : text.trim()) + "\" reads as a truth table of "
                     + Integer.numberOfTrailingZeros(len) + " variable" + (len == 2 ? "" : "s") + ", but here")

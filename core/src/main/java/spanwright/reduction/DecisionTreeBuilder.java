@@ -86,6 +86,9 @@ public final class DecisionTreeBuilder {
     public static Built build(String function, List<String> variables, boolean diagram, List<String> order,
             Weights weights) {
         String text = function == null ? "" : function.trim();
+        if (spanwright.expr.ExprParser.looksLikeTruthTable(text)) {
+            text = spanwright.expr.ExprParser.tableDigits(text); // "0110 1001" is the table 01101001
+        }
         int tableVars = TruthTable.variablesOfString(text);
         String badLength = spanwright.expr.ExprParser.truthTableLengthProblem(text);
         if (badLength != null) {

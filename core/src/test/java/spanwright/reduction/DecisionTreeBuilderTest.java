@@ -183,6 +183,18 @@ class DecisionTreeBuilderTest {
         assertEquals(Boolean.TRUE, Analysis.run(sc).correct());
         assertEquals(List.of("p", "q"), DecisionTreeBuilder.build("0001", List.of("p", "q"), false, null, GUESS)
                 .scenario().variables());
+        // a table written in groups ("0110 1001", "0110_1001") is the same table: parity of three
+        // variables, f(x) = x1 xor x2 xor x3 (derived)
+        for (String grouped : List.of("0110 1001", " 0110_1001 ", "01 10 10 01")) {
+            Scenario p = DecisionTreeBuilder.build(grouped, null, false, null, GUESS).scenario();
+            assertEquals(List.of("x1", "x2", "x3"), p.variables(), grouped);
+            for (long m = 0; m < 8; m++) {
+                assertEquals(Long.bitCount(m) % 2 == 1, p.function().eval(m), grouped + " at " + m);
+            }
+        }
+        ScenarioException short7 = assertThrows(ScenarioException.class,
+                () -> DecisionTreeBuilder.build("0110 100", null, false, null, GUESS));
+        assertTrue(short7.getMessage().contains("got 7"), short7.getMessage());
     }
 
     @Test
