@@ -296,11 +296,10 @@
    *  as the Summary shows it, every edge with its condition and weight), then one row per input
    *  with the input string, one column per variable, f, s~t, R or C and whether it is a
    *  counterexample. */
-  function inputsCsv() {
+  function inputsCsv(caption) {
     const a = state.analysis, sc = state.scenario;
-    const lines = ["# Spanwright inputs: " + oneLine(sc.title || "Untitled scenario"),
-      "# normalisation: weight = resistance, each edge counted once (present edge: resistor w; absent edge: capacitor 1/w)",
-      "# " + boundText()];
+    const lines = ["# Spanwright inputs: " + oneLine(sc.title || "Untitled scenario")];
+    caption.forEach(function (c) { if (c.role === "bound" || c.role === "normalisation") lines.push("# " + oneLine(c.text)); });
     if (a.xs) lines.push("# rows: the structural engine's candidates (worst path, worst bond), not every input of the 2^" + a.nvars + " in the domain");
     lines.push("# weights (resistance), one edge a line: id, ends, present when, weight");
     sc.graph.edges.forEach(function (e) {
@@ -318,40 +317,48 @@
     return lines.join("\n") + "\n";
   }
 
-  /** The bound as the Summary shows it, with W+ and W-, and its standing when f is not decided. */
-  function boundText() {
-    const t = function (id) { return $(id).textContent.trim() || "–"; };
-    const wrong = $("verdict").dataset.correct === "no";
-    return "bound √(W₊·W₋) = " + t("sum-bound") + " (W₊ = max R = " + t("sum-wplus") + ", W₋ = max C = " + t("sum-wminus") + ")" +
-      (wrong ? " — not a bound for f: the graph does not decide f on every input (see the Summary)" : "");
+  /** What the engine needs to caption a figure as the Summary shows it: the input in focus, and
+   *  W₊, W₋ and the engine's note on the bound when the shown analysis is of this text (else the
+   *  engine analyses for the caption, as export --tikz does). */
+  function figureOptions() {
+    const a = state.analysis;
+    const opts = { input: a && state.focus >= 0 ? P.xOf(a.codes[state.focus]) : null };
+    if (a && a.text === P.text()) {
+      const num = function (id) { const v = $(id).dataset.value; return v === "" || v === undefined ? null : Number(v); };
+      opts.positive = num("sum-wplus");
+      opts.negative = num("sum-wminus");
+      const note = $("sum-bound-note").dataset.note;
+      if (note) opts.note = note;
+    }
+    return opts;
   }
 
-  /** The caption lines of an exported figure: title, the input in focus and its R or C, the
-   *  bound, the normalisation and the caution — the numbers as the page shows them. */
+  /** The engine's figure for the current text (JsonFacade.tikz): the TikZ text and the caption
+   *  lines, the same for the TikZ, PNG, SVG and CSV exports. Rejects with the engine's message. */
+  function engineFigure() {
+    return state.bridge.call("tikz", P.text(), JSON.stringify(figureOptions())).then(function (r) {
+      if (!r.ok) throw new Error(((r.error && r.error.message) || "unknown problem") + (r.error && r.error.path ? " (at " + r.error.path + ")" : ""));
+      return r;
+    });
+  }
+
+  /** The caption lines of an exported figure: the title, then the engine's lines (the input in
+   *  focus and its R or C, the bound and its standing, the normalisation and the caution). */
   function figureCaption() {
-    const a = state.analysis, sc = state.scenario;
-    const lines = [{ role: "title", text: oneLine(sc.title || "Untitled scenario") }];
-    if (a && state.focus >= 0) {
-      const i = state.focus, fl = a.flags[i], x = P.xOf(a.codes[i]);
-      lines.push({ role: "input", text: "input x = " + x + "  (" + sc.variables.map(function (v, k) { return v + "=" + x.charAt(k); }).join(" ") + ")" });
-      lines.push({ role: "value", text: ((fl & 1) ? "positive, s and t connected: effective resistance R = " : "negative, s and t apart: effective capacitance C = ") + F.num(a.values[i]) +
-        ((fl & 2) ? ";  f(x) = " + ((fl & 4) ? 1 : 0) : "") + (P.isBad(fl) ? " — a counterexample" : "") });
-    } else {
-      lines.push({ role: "input", text: "no input in focus: every edge drawn with its condition" });
-    }
-    if (a) lines.push({ role: "bound", text: boundText() });
-    lines.push({ role: "normalisation", text: "Normalisation: weight = resistance, each edge counted once (present edge: resistor w; absent edge: capacitor 1/w)." });
-    lines.push({ role: "caution", text: "An asymptotic query-complexity bound for the span-program algorithm, not a run-time estimate for real hardware." });
-    return lines;
+    return engineFigure().then(function (r) {
+      return [{ role: "title", text: oneLine(state.scenario.title || "Untitled scenario") }].concat(r.caption);
+    });
   }
 
   $("export-csv").addEventListener("click", function () {
     if (!state.analysis) { P.notify("Nothing to export yet: the analysis has not finished.", "info"); return; }
-    F.download(F.fileName(state.scenario.title, "-inputs.csv"), new Blob([inputsCsv()], { type: "text/csv" }));
+    figureCaption().then(function (caption) {
+      F.download(F.fileName(state.scenario.title, "-inputs.csv"), new Blob([inputsCsv(caption)], { type: "text/csv" }));
+    }).catch(function (e) { P.notify("Could not make the CSV: " + (e && e.message ? e.message : e), "error"); });
   });
 
   $("export-png").addEventListener("click", function () {
-    P.drawing.png(figureCaption()).then(function (r) {
+    figureCaption().then(function (caption) { return P.drawing.png(caption); }).then(function (r) {
       const b = $("export-png");
       b.dataset.size = r.width + "x" + r.height;
       b.dataset.drawingHeight = String(r.drawingHeight);
@@ -359,33 +366,26 @@
     }).catch(function (e) { P.notify("Could not make the PNG: " + (e && e.message ? e.message : e), "error"); });
   });
   $("export-svg").addEventListener("click", function () {
-    const text = P.drawing.svg(state.scenario.title, figureCaption());
-    $("export-svg").dataset.chars = String(text.length);
-    F.download(F.fileName(state.scenario.title, ".svg"), new Blob([text], { type: "image/svg+xml" }));
+    figureCaption().then(function (caption) {
+      const text = P.drawing.svg(state.scenario.title, caption);
+      $("export-svg").dataset.chars = String(text.length);
+      F.download(F.fileName(state.scenario.title, ".svg"), new Blob([text], { type: "image/svg+xml" }));
+    }).catch(function (e) { P.notify("Could not make the SVG: " + (e && e.message ? e.message : e), "error"); });
   });
 
   /* The drawing as a TikZ figure, written by the engine (JsonFacade.tikz, as export --tikz): the
    * input in focus with its currents or potentials, and a caption with W₊ and W₋ as the Summary
    * shows them (passed in, so nothing is analysed again). */
   $("export-tikz").addEventListener("click", function () {
-    const a = state.analysis;
-    const opts = { input: a && state.focus >= 0 ? P.xOf(a.codes[state.focus]) : null };
-    if (a && a.text === P.text()) {
-      const num = function (id) { const v = $(id).dataset.value; return v === "" || v === undefined ? null : Number(v); };
-      opts.positive = num("sum-wplus");
-      opts.negative = num("sum-wminus");
-    }
     const b = $("export-tikz");
     b.dataset.state = "running";
-    state.bridge.call("tikz", P.text(), JSON.stringify(opts)).then(function (r) {
-      if (!r.ok) {
-        b.dataset.state = "error";
-        P.notify("Could not make the TikZ figure: " + ((r.error && r.error.message) || "unknown problem") + (r.error && r.error.path ? " (at " + r.error.path + ")" : ""), "error");
-        return;
-      }
+    engineFigure().then(function (r) {
       b.dataset.state = "done";
       b.dataset.chars = String(r.standalone.length);
       F.download(F.fileName(state.scenario.title, ".tex"), new Blob([r.standalone], { type: "application/x-tex" }));
+    }).catch(function (e) {
+      b.dataset.state = "error";
+      P.notify("Could not make the TikZ figure: " + (e && e.message ? e.message : e), "error");
     });
   });
   P.hooks.engine.push(function () { $("export-tikz").disabled = !state.bridge.has("tikz"); });

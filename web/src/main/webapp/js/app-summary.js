@@ -95,6 +95,7 @@
     const note = $("sum-bound-note");
     note.hidden = !notBound;
     note.textContent = notBound ? "√(W₊·W₋) is " + String(result.complexityNote || "not a bound for f: the graph does not decide f") + "." : "";
+    note.dataset.note = notBound ? String(result.complexityNote || "not a bound for f: the graph does not decide f") : "";
     if (notBound) $("sum-bound").title = note.textContent;
   }
 

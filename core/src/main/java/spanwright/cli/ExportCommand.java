@@ -78,7 +78,7 @@ final class ExportCommand {
         boolean[] x = input == null ? null : SimulationJson.bits(input, sc, "--input");
         TikzFigure.Text tikz = null;
         if (outputs.containsKey("--tikz") || outputs.containsKey("--tikz-body")) {
-            tikz = TikzFigure.draw(sc, x, null);
+            tikz = TikzFigure.draw(sc, x, null, null);
         }
         for (Map.Entry<String, String> o : outputs.entrySet()) {
             String text;

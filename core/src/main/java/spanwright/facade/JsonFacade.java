@@ -253,7 +253,10 @@ public final class JsonFacade {
      * The drawing as a TikZ figure ({@link TikzFigure}). Options (JSON object, all keys optional):
      * {@code "input"}: the focused input ("0110"; null or absent for none); {@code "positive"},
      * {@code "negative"}: W₊ and W₋ when the caller has them (both, or the analysis is run for the
-     * caption; a side with no input is null). Answer {@code {"ok":true,"standalone":"…","body":"…"}}
+     * caption; a side with no input is null); {@code "note"}: with them, the analysis's
+     * {@code complexityNote} when √(W₊W₋) is not a bound for f. Answer {@code {"ok":true,
+     * "standalone":"…","body":"…","caption":[{"role":"input","text":"…"},…]}} (the caption lines, which
+     * the page's PNG and SVG exports show too)
      * or the error envelope ({@code $.input}, {@code $options.…}). Cost: the analysis when W₊, W₋ are
      * not given, plus one input's witness.
      */
@@ -263,6 +266,7 @@ public final class JsonFacade {
             boolean[] x = null;
             double positive = Double.NaN;
             double negative = Double.NaN;
+            String note = null;
             boolean given = false;
             for (Map.Entry<String, Object> e : ScenarioReader.options(optionsJson).entrySet()) {
                 Object v = e.getValue();
@@ -288,15 +292,27 @@ public final class JsonFacade {
                         }
                         break;
                     }
+                    case "note":
+                        note = v == Json.NULL ? null : ScenarioReader.string(v, path);
+                        break;
                     default:
-                        throw ScenarioReader.unknownOption(e.getKey(), "input, positive, negative");
+                        throw ScenarioReader.unknownOption(e.getKey(), "input, positive, negative, note");
                 }
             }
-            TikzFigure.Text t = TikzFigure.draw(sc, x, given ? new double[] {positive, negative} : null);
+            TikzFigure.Text t = TikzFigure.draw(sc, x, given ? new double[] {positive, negative} : null,
+                    given ? note : null);
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("ok", true);
             m.put("standalone", t.standalone);
             m.put("body", t.body);
+            List<Object> caption = new ArrayList<>();
+            for (TikzFigure.Line l : t.caption) {
+                Map<String, Object> line = new LinkedHashMap<>();
+                line.put("role", l.role);
+                line.put("text", l.text);
+                caption.add(line);
+            }
+            m.put("caption", caption);
             return Json.write(m);
         } catch (RuntimeException e) {
             return fail(e);

@@ -9,6 +9,7 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import java.util.regex.Matcher;
@@ -85,6 +86,35 @@ class TikzFigureTest {
         assertTrue(body.contains("bound sqrt(W+ W-) = " + spanwright.io.NumberText.sig(c, 6)), body);
         assertTrue(body.contains("weight = resistance"), "the normalisation");
         assertFalse(body.contains("\u2212") || body.contains("\u221e"), "no raw non-ASCII signs for pdflatex");
+    }
+
+    @Test
+    @SuppressWarnings("unchecked")
+    void theCaptionLinesSayWhenTheBoundIsNoBoundForF() throws IOException {
+        // the default graph is an OR of three ANDs; f = n1 & n2 is not what it decides, so sqrt(W+ W-)
+        // bounds no algorithm for f (common practice, no source: a reduction must decide f)
+        String json = Files.readString(Path.of("../scenarios/default.json"))
+                .replace("\"function\": \"(n1 & n2) | (s1 & s2) | (p & q)\"", "\"function\": \"n1 & n2\"");
+        assertTrue(json.contains("\"n1 & n2\""), "the function was replaced");
+        Map<String, Object> wrong = (Map<String, Object>) Json.parse(JsonFacade.tikz(json, "{}"));
+        List<Object> caption = (List<Object>) wrong.get("caption");
+        Map<String, Object> bound = (Map<String, Object>) caption.stream()
+                .filter(l -> "bound".equals(((Map<String, Object>) l).get("role"))).findFirst().orElseThrow();
+        assertTrue(((String) bound.get("text")).contains("not a bound for f"), bound.toString());
+        assertTrue(((String) wrong.get("body")).contains("not a bound for f"), "the TikZ caption says it too");
+        // the caller's note (the page passes the Summary's) with given W+ and W-
+        Map<String, Object> given = (Map<String, Object>) Json.parse(JsonFacade.tikz(json,
+                "{\"positive\":2,\"negative\":4,\"note\":\"not a bound for f: the caller says so\"}"));
+        assertTrue(given.get("body").toString().contains("bound sqrt(W+ W-) = 2.82843; not a bound for f: the caller says so."));
+        // the right f: no mark, and the lines in order
+        Map<String, Object> right = (Map<String, Object>) Json.parse(JsonFacade.tikz(
+                Files.readString(Path.of("../scenarios/default.json")), "{\"input\":\"110000\"}"));
+        List<String> roles = new java.util.ArrayList<>();
+        for (Object l : (List<Object>) right.get("caption")) {
+            roles.add((String) ((Map<String, Object>) l).get("role"));
+            assertFalse(((String) ((Map<String, Object>) l).get("text")).contains("not a bound"));
+        }
+        assertEquals(List.of("input", "value", "bound", "normalisation", "caution"), roles);
     }
 
     @Test

@@ -482,9 +482,10 @@ class WorkbenchIT extends PageTestBase {
         assertTrue(value.contains("effective capacitance C = "), value);
         // Source: JsonFacade.analyze on the JVM, the worst negative input's C is W- (printed to 6 digits by the page).
         assertEquals(side(expected, "negative", "maxCapacitance"), Double.parseDouble(value.replaceAll(".*C = ([-0-9.eE+]+).*", "$1")), 1e-5, value);
+        // the caption lines are the engine's (JsonFacade.tikz), the same as the TikZ figure's
         String bound = caption.get("bound");
-        assertEquals(((Number) expected.get("complexity")).doubleValue(), Double.parseDouble(bound.replaceAll(".*\\) = ([-0-9.eE+]+) .*", "$1")), 1e-5, bound);
-        assertTrue(caption.get("normalisation").contains("weight = resistance, each edge counted once"), caption.get("normalisation"));
+        assertEquals(((Number) expected.get("complexity")).doubleValue(), Double.parseDouble(bound.replaceAll(".*sqrt\\(W\\+ W-\\) = ([-0-9.eE+]*[0-9]).*", "$1")), 1e-5, bound);
+        assertTrue(caption.get("normalisation").contains(spanwright.model.Normalisation.CONVENTION), caption.get("normalisation"));
         assertTrue(caption.containsKey("caution"), "the caution is in the caption");
         // The colour key names what the drawing uses: literal colours, dashed absent edges, s, t and the potential ramp.
         List<String> keys = new java.util.ArrayList<>();
@@ -534,6 +535,11 @@ class WorkbenchIT extends PageTestBase {
         page.waitFor("CSV produced", WAIT, () -> page.js("return window.__csv;") != null);
         List<String> lines = List.of(((String) page.js("return window.__csv;")).split("\n"));
         assertEquals("# Spanwright inputs: " + doc.get("title"), lines.get(0));
+        // the bound and normalisation lines are the engine's caption lines (JsonFacade.tikz)
+        double bound = ((Number) expected.get("complexity")).doubleValue();
+        assertTrue(lines.stream().anyMatch(l -> l.startsWith("# W+ = ") && l.contains("bound sqrt(W+ W-) = "
+                + spanwright.io.NumberText.sig(bound, 6))), "bound line: " + lines.subList(0, 4));
+        assertTrue(lines.contains("# Normalisation: " + spanwright.model.Normalisation.CONVENTION + "."), "normalisation line");
         for (Object o : edges) {
             Map<String, Object> e = (Map<String, Object>) o;
             Object w = e.get("weight") == null ? 1 : e.get("weight");
