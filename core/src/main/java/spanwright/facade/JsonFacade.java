@@ -110,7 +110,9 @@ public final class JsonFacade {
      * Reads and checks a scenario without analysing it. The domain is built (and an empty promise
      * refused) only when {@link Analysis#choose} would enumerate it; beyond enumeration (a host
      * graph of 60 edge variables, say) {@code domainSize} is 2^n, never listed, and
-     * {@code method} says {@code "structure"}.
+     * {@code method} says {@code "structure"}. Answer {@code {"ok":true,"warnings":[…],
+     * "variables":[…],"domainSize":N,"method":"enumerate"|"structure","methodReason":"…"}}
+     * ({@code domainSize} null beyond a double's range) or the error envelope.
      */
     public static String validate(String scenarioJson) {
         try {
@@ -156,6 +158,13 @@ public final class JsonFacade {
         }
     }
 
+    /**
+     * Starts a stepped enumeration ({@link #stepAnalysis}, {@link #finishAnalysis},
+     * {@link #cancelAnalysis}): answer {@code {"ok":true,"job":K,"domainSize":N,"maxListedInputs":M,
+     * "method":"enumerate","methodReason":"…"}}. When {@link Analysis#choose} picks the structural
+     * engine there is nothing to step: {@code job} is null, {@code method} is {@code "structure"},
+     * and the caller runs {@link #analyze} (one call) instead.
+     */
     public static String startAnalysis(String scenarioJson) {
         try {
             Scenario sc = ScenarioReader.read(scenarioJson);
