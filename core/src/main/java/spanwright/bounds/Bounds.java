@@ -4,6 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import spanwright.analysis.Analysis;
 import spanwright.analysis.AnalysisResult;
+import spanwright.analysis.StructuralAnalysis;
 import spanwright.model.ScenarioException;
 import spanwright.model.Scenario;
 import spanwright.optimize.OptimizationResult;
@@ -101,7 +102,11 @@ public final class Bounds {
         }
         int n = scenario.variableCount();
         Map<String, String> reasons = new LinkedHashMap<>();
-        AnalysisResult analysis = Analysis.run(scenario);
+        // beyond enumeration (a host graph with one variable per edge) this graph's side comes from
+        // the structural engine; the lower bounds of f then need more variables than their limits
+        boolean structure = Analysis.choose(scenario, Analysis.Method.AUTO).method() == Analysis.Method.STRUCTURE;
+        AnalysisResult analysis = structure ? null : Analysis.run(scenario);
+        BoundsReport.Measured measured = structure ? measured(StructuralAnalysis.run(scenario)) : measured(analysis);
         int widest = Math.max(limits.general(), Math.max(limits.positive(), limits.classical()));
         TargetFunction f = n <= widest ? TargetFunction.of(scenario) : null;
 
@@ -128,18 +133,18 @@ public final class Bounds {
             }
         }
 
-        double complexity = analysis.complexity();
-        boolean decides = Boolean.TRUE.equals(analysis.correct());
+        double complexity = measured.complexity;
+        boolean decides = Boolean.TRUE.equals(measured.correct);
         if (Double.isNaN(complexity)) {
-            reasons.put("complexity", analysis.positiveCount() == 0
-                    ? "no input of the domain connects s and t, so W+ and sqrt(W+ W-) are undefined"
-                    : "every input of the domain connects s and t, so W- and sqrt(W+ W-) are undefined");
+            reasons.put("complexity", measured.undefined);
         }
         double gap = Double.NaN;
         double speedup = Double.NaN;
         if (!decides) {
-            String why = "the graph does not decide the function (" + analysis.counterexampleCount()
-                    + " counterexample(s)), so sqrt(W+ W-) is not a bound for it";
+            String why = measured.correct == null
+                    ? "the reduction was not checked (" + measured.method + "), so sqrt(W+ W-) is not known to bound f"
+                    : "the graph does not decide the function (" + measured.counterexamples
+                            + " counterexample(s)), so sqrt(W+ W-) is not a bound for it";
             reasons.put("optimalityGap", why);
             reasons.put("speedup", why);
         } else if (Double.isNaN(complexity)) {
@@ -174,10 +179,31 @@ public final class Bounds {
             reasons.put("optimisedComplexity", reasons.containsKey("optimalityGap") ? reasons.get("optimalityGap")
                     : "sqrt(W+ W-) is undefined");
         }
-        BoundsReport report = new BoundsReport(scenario, limits, f, analysis, general, positive, classical, gap,
-                speedup, reasons);
+        BoundsReport report = new BoundsReport(scenario, limits, f, analysis, measured, general, positive, classical,
+                gap, speedup, reasons);
         report.setOptimised(opt, optGap);
         return report;
+    }
+
+    private static final String NO_POSITIVE = "no input of the domain connects s and t, so W+ and sqrt(W+ W-) are undefined";
+    private static final String NO_NEGATIVE = "every input of the domain connects s and t, so W- and sqrt(W+ W-) are undefined";
+
+    private static BoundsReport.Measured measured(AnalysisResult a) {
+        double c = a.complexity();
+        return new BoundsReport.Measured("enumerate", a.domainSize(), Long.toString(a.domainSize()), a.correct(),
+                Long.toString(a.counterexampleCount()), c, true,
+                Double.isNaN(c) ? (a.positiveCount() == 0 ? NO_POSITIVE : NO_NEGATIVE) : null);
+    }
+
+    private static BoundsReport.Measured measured(StructuralAnalysis.Result r) {
+        int n = r.scenario().variableCount();
+        boolean noPositive = r.positive().worst() == null;
+        boolean noNegative = r.negative().worst() == null;
+        double c = noPositive || noNegative ? Double.NaN : r.complexity();
+        java.math.BigInteger wrong = r.reduction().counterexamples();
+        return new BoundsReport.Measured("structure", Math.pow(2, n), "2^" + n, r.reduction().correct(),
+                wrong == null ? "0" : wrong.toString(), c, r.positive().exact() && r.negative().exact(),
+                noPositive ? NO_POSITIVE : noNegative ? NO_NEGATIVE : null);
     }
 
     /**

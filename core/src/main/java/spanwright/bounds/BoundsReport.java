@@ -16,6 +16,7 @@ public final class BoundsReport {
     private final Bounds.Limits limits;
     private final TargetFunction function;
     private final AnalysisResult analysis;
+    private final Measured measured;
     private final GeneralAdversary general;
     private final PositiveAdversary positive;
     private final ClassicalMeasures classical;
@@ -25,13 +26,50 @@ public final class BoundsReport {
     private OptimizationResult optimised;
     private double optimisedGap = Double.NaN;
 
+    /**
+     * This graph's side of the comparison, by whichever method analysed it: the domain's size, the
+     * reduction's verdict, √(W₊W₋) and whether it is exact (a time budget can leave the structural
+     * engine with an interval, whose lower end is given).
+     */
+    public static final class Measured {
+        /** "enumerate" or "structure". */
+        public final String method;
+        /** The number of inputs (2^n for the structural engine), as a double. */
+        public final double domainSize;
+        /** The same in words: "4096" or "2^66". */
+        public final String domainText;
+        /** true when the graph decides f, false when not, null when not checked. */
+        public final Boolean correct;
+        /** How many inputs the graph gets wrong (decimal; "0" when it decides f). */
+        public final String counterexamples;
+        /** √(W₊W₋), NaN when a side has no input. */
+        public final double complexity;
+        /** Is {@link #complexity} exact (false: the lower end of a certified interval)? */
+        public final boolean exact;
+        /** Why {@link #complexity} is NaN, or null. */
+        public final String undefined;
+
+        Measured(String method, double domainSize, String domainText, Boolean correct, String counterexamples,
+                double complexity, boolean exact, String undefined) {
+            this.method = method;
+            this.domainSize = domainSize;
+            this.domainText = domainText;
+            this.correct = correct;
+            this.counterexamples = counterexamples;
+            this.complexity = complexity;
+            this.exact = exact;
+            this.undefined = undefined;
+        }
+    }
+
     BoundsReport(Scenario scenario, Bounds.Limits limits, TargetFunction function, AnalysisResult analysis,
-            GeneralAdversary general, PositiveAdversary positive, ClassicalMeasures classical, double optimalityGap,
-            double speedup, Map<String, String> reasons) {
+            Measured measured, GeneralAdversary general, PositiveAdversary positive, ClassicalMeasures classical,
+            double optimalityGap, double speedup, Map<String, String> reasons) {
         this.scenario = scenario;
         this.limits = limits;
         this.function = function;
         this.analysis = analysis;
+        this.measured = measured;
         this.general = general;
         this.positive = positive;
         this.classical = classical;
@@ -53,8 +91,14 @@ public final class BoundsReport {
         return function;
     }
 
+    /** The enumeration's result, or null when the structural engine analysed the graph. */
     public AnalysisResult analysis() {
         return analysis;
+    }
+
+    /** This graph's numbers, whichever method computed them. */
+    public Measured measured() {
+        return measured;
     }
 
     /** Set once by {@link Bounds#compute}. */
@@ -80,7 +124,7 @@ public final class BoundsReport {
 
     /** √(W₊W₋) of the scenario's weights (NaN when a side is empty). */
     public double complexity() {
-        return analysis.complexity();
+        return measured.complexity;
     }
 
     /** ADV±, or null (see {@link #reason}). */

@@ -115,7 +115,7 @@ final class BoundsCommand {
         } else {
             out.print(summary(r, seconds));
         }
-        return Boolean.FALSE.equals(r.analysis().correct()) ? Main.WRONG_REDUCTION : Main.OK;
+        return Boolean.FALSE.equals(r.measured().correct) ? Main.WRONG_REDUCTION : Main.OK;
     }
 
     /** A seeded random function on the whole cube of n variables (balanced in expectation). */
@@ -224,7 +224,8 @@ final class BoundsCommand {
         StringBuilder sb = new StringBuilder();
         sb.append(sc.title().isEmpty() ? "(untitled scenario)" : sc.title()).append('\n');
         sb.append(line("function", sc.functionText()));
-        sb.append(line("domain", r.analysis().domainSize() + " inputs, " + sc.promise().describe(sc.variables())));
+        sb.append(line("domain", r.measured().domainText + " inputs, " + sc.promise().describe(sc.variables())
+                + (r.measured().method.equals("structure") ? " (not enumerated: W+ and W- by the structural engine)" : "")));
         GeneralAdversary g = r.general();
         if (g == null) {
             sb.append(line("ADV+-", "not computed: " + r.reason("general")));
@@ -259,7 +260,8 @@ final class BoundsCommand {
             }
         }
         sb.append(line("sqrt(W+ W-)", Double.isNaN(r.complexity()) ? "undefined: " + r.reason("complexity")
-                : NumberText.sig(r.complexity(), 10) + "   (this graph, current weights)"));
+                : (r.measured().exact ? "" : ">= ") + NumberText.sig(r.complexity(), 10) + "   (this graph, current weights"
+                        + (r.measured().exact ? ")" : "; a time budget left a certified interval, its lower end shown)")));
         sb.append(line("optimality gap", Double.isNaN(r.optimalityGap()) ? "not computed: " + r.reason("optimalityGap")
                 : NumberText.sig(r.optimalityGap(), 6) + "   sqrt(W+ W-) / ADV+- (1 = optimal graph)"));
         if (r.optimised() != null) {

@@ -37,7 +37,9 @@ public final class BoundsJson {
         m.put("variables", new ArrayList<Object>(r.scenario().variables()));
         m.put("function", r.scenario().functionText());
         m.put("promise", r.scenario().promise().describe(r.scenario().variables()));
-        m.put("domainSize", r.analysis().domainSize());
+        m.put("domainSize", ResultJson.num(r.measured().domainSize));
+        m.put("method", r.measured().method);
+        m.put("complexityExact", r.measured().exact);
         m.put("adversary", adversary(r));
         m.put("classical", classical(r));
         m.put("complexity", ResultJson.num(r.complexity()));
@@ -60,13 +62,13 @@ public final class BoundsJson {
         limits.put("positive", r.limits().positive());
         limits.put("classical", r.limits().classical());
         m.put("limits", limits);
-        m.put("reductionCorrect", r.analysis().correct() == null ? Json.NULL : r.analysis().correct());
+        m.put("reductionCorrect", r.measured().correct == null ? Json.NULL : r.measured().correct);
         // as in the analysis (ResultJson): where the graph does not decide f, √(W₊W₋) and the
         // comparisons built on it are no bound for f
-        boolean wrong = Boolean.FALSE.equals(r.analysis().correct());
+        boolean wrong = Boolean.FALSE.equals(r.measured().correct);
         m.put("complexityIsBound", !wrong);
         if (wrong) {
-            m.put("complexityNote", spanwright.analysis.Analysis.notABound(Long.toString(r.analysis().counterexampleCount())));
+            m.put("complexityNote", spanwright.analysis.Analysis.notABound(r.measured().counterexamples));
         }
         m.put("convention", ResultJson.CONVENTION);
         m.put("caution", Bounds.CAUTION);

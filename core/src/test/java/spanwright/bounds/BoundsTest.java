@@ -158,6 +158,34 @@ class BoundsTest {
     }
 
     @Test
+    void beyondEnumerationThisGraphsSideComesFromTheStructuralEngine() {
+        // K12 with one variable per edge: 66 variables, never enumerated. Derived: unit weights give
+        // W+ = 11 (a Hamiltonian s-t path) and W- = floor(12^2/4) = 36 (a balanced cut), so
+        // sqrt(W+ W-) = sqrt(396); the graph decides its own connectivity by construction.
+        Scenario k12 = spanwright.reduction.HostGraphBuilder.family("complete", new int[] {12}, null, null, 1, -1)
+                .scenario();
+        BoundsReport r = Bounds.compute(k12, Bounds.Limits.CLI);
+        assertEquals("structure", r.measured().method);
+        assertEquals("2^66", r.measured().domainText);
+        assertEquals(Boolean.TRUE, r.measured().correct);
+        assertEquals(Math.sqrt(396), r.complexity(), 1e-9);
+        assertNull(r.analysis(), "nothing enumerated");
+        assertNull(r.general());
+        assertTrue(r.reason("general").contains("66 variables"), r.reason("general"));
+        // the weight search (working set) never does worse than the weights it starts from
+        assertNotNull(r.optimised());
+        assertTrue(r.optimisedComplexity() <= r.complexity() * (1 + 1e-9), r.optimisedComplexity() + "");
+        // a function this graph does not decide: no gap, no optimised weights, the reason in words
+        Scenario wrong = ScenarioReader.read(spanwright.io.ScenarioWriter.write(k12)
+                .replaceFirst("\"function\": \\{[^}]*\\}", "\"function\": \"" + k12.variables().get(0) + "\""));
+        assertEquals(k12.variables().get(0), wrong.functionText());
+        BoundsReport w = Bounds.compute(wrong, Bounds.Limits.CLI);
+        assertEquals(Boolean.FALSE, w.measured().correct);
+        assertTrue(w.reason("optimalityGap").contains("does not decide"), w.reason("optimalityGap"));
+        assertNull(w.optimised());
+    }
+
+    @Test
     void wrongReductionHasNoGap() {
         // the one-edge graph decides x1, not x1 & x2
         Scenario sc = ScenarioReader.read(scenarioJson(List.of("x1", "x2"), "x1 & x2", null));
