@@ -114,6 +114,7 @@ class BoundsAndRunIT extends PageTestBase {
             assertTrue(!optimised.isEmpty() && Double.parseDouble(optimised) <= num(r.get("complexity")) * (1 + 1e-9), optimised);
             assertTrue(page.$("bounds-general").getAttribute("data-reason").contains("60 variables"),
                     page.$("bounds-general").getAttribute("data-reason"));
+            page.screenshot("grid-6x6-bounds");
         } finally {
             java.nio.file.Files.deleteIfExists(file);
         }
