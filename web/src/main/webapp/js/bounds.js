@@ -23,7 +23,7 @@
     ["adversary", "general", "ADV± (general adversary)", "lower bound for every graph deciding f; Θ(quantum query complexity)"],
     ["adversary", "generalDual", "ADV± upper value", "the dual value of the same semidefinite program"],
     ["adversary", "positive", "ADV (positive adversary)", "certified lower end; ADV ≤ ADV±"],
-    ["adversary", "positiveUpper", "ADV upper value", "the minimax value of the engine's distributions; ADV lies between the two", "positive"],
+    ["adversary", "positiveUpper", "ADV upper value", "certified upper end (the minimax value of the engine's distributions, or the SDP witness's value where smaller); ADV lies between the two", "positive"],
     ["classical", "D", "D (decision-tree depth)", "deterministic query complexity"],
     ["classical", "C0", "C₀ (0-certificate)", ""],
     ["classical", "C1", "C₁ (1-certificate)", ""],

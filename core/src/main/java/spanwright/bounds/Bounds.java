@@ -120,7 +120,8 @@ public final class Bounds {
         if (n > limits.positive()) {
             reasons.put("positive", tooMany(n, limits.positive(), Limits.CLI.positive(), "the positive adversary", limits));
         } else {
-            positive = PositiveAdversary.compute(f);
+            positive = PositiveAdversary.compute(f,
+                    limits == Limits.PAGE ? PositiveAdversary.PAGE_SDP_MAX_VARIABLES : PositiveAdversary.SDP_MAX_VARIABLES);
         }
         ClassicalMeasures classical = null;
         if (n > limits.classical()) {

@@ -145,6 +145,34 @@ public final class GeneralAdversary implements CertifiedBound {
 
     /** As {@link #compute(TargetFunction)}, with the solver chosen by the caller (tests). */
     static GeneralAdversary compute(TargetFunction f, Method forced) {
+        return compute(f, forced, false);
+    }
+
+    /**
+     * The positive-weight adversary ADV(f) by the same SDP with Γ ≥ 0 entrywise, as a certified
+     * interval carried by a {@code GeneralAdversary} (package use only, by
+     * {@link PositiveAdversary}); null when the SDP is too large for the interior-point method
+     * (m &gt; {@link #INTERIOR_POINT_MAX_CONSTRAINTS}, i.e. beyond six variables on the whole cube).
+     *
+     * <p>Γ ≥ 0 makes each pair equation an inequality Σ_{i: x_i≠y_i} X_i[x,y] ≥ 1 (the witness
+     * form of ADV, dual of the spectral form max ‖Γ‖ / max_i ‖Γ∘Δ_i‖ over non-negative Γ of
+     * Barnum, Saks &amp; Szegedy, CCC 2003): one 1×1 slack block s_q ≥ 0 per pair, Σ X − s_q = 1,
+     * whose dual slack is 2Γ_q. Certificates: the lower end is the spectral form of the solver's
+     * Γ with negative entries set to 0 (any non-negative Γ gives a valid bound); the upper end
+     * repairs only pairs with Σ X &lt; 1, then shifts each block to PSD as for ADV±.
+     */
+    static GeneralAdversary positiveWeights(TargetFunction f) {
+        if (f.isConstant()) {
+            return compute(f, Method.INTERIOR_POINT, true);
+        }
+        long pairs = (long) f.zerosCount() * f.onesCount();
+        if (pairs + f.size() > INTERIOR_POINT_MAX_CONSTRAINTS) {
+            return null;
+        }
+        return compute(f, Method.INTERIOR_POINT, true);
+    }
+
+    private static GeneralAdversary compute(TargetFunction f, Method forced, boolean nonNegative) {
         int n = f.variableCount();
         int size = f.size();
         if (f.isConstant()) {
@@ -207,8 +235,16 @@ public final class GeneralAdversary implements CertifiedBound {
         }
         int tBlock = sdp.addBlock(1);
         sdp.cost(tBlock, 0, 0, 1);
+        int[] slackBlock = new int[nonNegative ? pairs : 0];
+        for (int p = 0; p < slackBlock.length; p++) {
+            slackBlock[p] = sdp.addBlock(1);
+        }
         for (int p = 0; p < pairs; p++) {
             sdp.addConstraint(2);
+            if (nonNegative) {
+                // 2 Σ X[x,y] − 2 s_q = 2 with s_q ≥ 0; the dual slack of this block is 2Γ_q ≥ 0
+                sdp.entry(slackBlock[p], 0, 0, -2);
+            }
             long diff = f.input(pz[p]) ^ f.input(po[p]);
             for (int i = 0; i < n; i++) {
                 if ((diff & f.variableMask(i)) != 0) {
@@ -236,7 +272,7 @@ public final class GeneralAdversary implements CertifiedBound {
         for (int bl = 0; bl < nb; bl++) {
             blockVar[bl] = variableOfBlock.get(bl);
         }
-        Layout layout = new Layout(f, pz, po, blockId, local, blockInputs);
+        Layout layout = new Layout(f, pz, po, blockId, local, blockInputs, nonNegative);
         Certified lo;
         int symmetries = 0;
         double[][] repaired = new double[nb][];
@@ -416,9 +452,13 @@ public final class GeneralAdversary implements CertifiedBound {
         /** Local index of each input ordinal in block 2i + c, or −1. */
         final int[][] local;
         final int[][] blockInputs;
+        /** The positive-weight version: Γ ≥ 0, pair constraints Σ X ≥ 1. */
+        final boolean nonNegative;
 
-        Layout(TargetFunction f, int[] pairZero, int[] pairOne, int[] blockId, int[][] local, int[][] blockInputs) {
+        Layout(TargetFunction f, int[] pairZero, int[] pairOne, int[] blockId, int[][] local, int[][] blockInputs,
+                boolean nonNegative) {
             this.f = f;
+            this.nonNegative = nonNegative;
             this.pairZero = pairZero;
             this.pairOne = pairOne;
             this.blockId = blockId;
@@ -462,6 +502,11 @@ public final class GeneralAdversary implements CertifiedBound {
         int[] po = lay.pairOne;
         int size = f.size();
         double[] gamma = java.util.Arrays.copyOfRange(y, 0, pz.length);
+        if (lay.nonNegative) {
+            for (int p = 0; p < gamma.length; p++) {
+                gamma[p] = Math.max(0, gamma[p]);
+            }
+        }
         double[] alpha = java.util.Arrays.copyOfRange(y, pz.length, pz.length + size);
         // zero and one indices (rows and columns of G)
         int[] index = new int[size];
@@ -553,6 +598,11 @@ public final class GeneralAdversary implements CertifiedBound {
         double[] s = new double[size];
         for (int k = 0; k < size; k++) {
             s[k] = (f.value(k) ? v.get(index[k], top) : u.get(index[k], top)) / Math.sqrt(2);
+            if (lay.nonNegative) {
+                // G ≥ 0: |u|ᵀG|v| ≥ uᵀGv = σ_max, so the absolute values are top singular vectors
+                // too, and Γ stays non-negative
+                s[k] = Math.abs(s[k]);
+            }
         }
         // θ with a margin for the rounding of the singular values
         double theta = 1 / (worst * (1 + 1e-12));
@@ -623,7 +673,7 @@ public final class GeneralAdversary implements CertifiedBound {
                     count++;
                 }
             }
-            double share = (1 - sum) / count;
+            double share = (lay.nonNegative ? Math.max(0, 1 - sum) : 1 - sum) / count;
             for (int i = 0; i < n; i++) {
                 if ((diff & f.variableMask(i)) != 0) {
                     int bc = blockOf(f, pz[p], i);

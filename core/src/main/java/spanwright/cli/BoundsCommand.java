@@ -168,6 +168,12 @@ final class BoundsCommand {
                 out.println("  ADV+-  n = " + n + "  seed " + (seed + k) + "  " + Main.pad(NumberText.sig((System.nanoTime() - t) / 1e9, 3) + " s", 10)
                         + "m = " + g.constraintCount() + ", " + g.iterations() + " iterations, ADV+- in ["
                         + NumberText.sig(g.lower(), 9) + ", " + NumberText.sig(g.upper(), 9) + "]");
+                t = System.nanoTime();
+                PositiveAdversary p = PositiveAdversary.compute(f);
+                out.println("  ADV    n = " + n + "  seed " + (seed + k) + "  " + Main.pad(NumberText.sig((System.nanoTime() - t) / 1e9, 3) + " s", 10)
+                        + (p.solvedBySdp() ? "minimax and SDP" : "minimax") + ", ADV in [" + NumberText.sig(p.lower(), 9) + ", "
+                        + NumberText.sig(p.upper(), 9) + "], relative width " + NumberText.sig((p.upper() - p.lower()) / p.upper(), 2)
+                        + " (minimax alone: upper " + NumberText.sig(p.minimaxUpper(), 9) + ")");
             }
         }
         if (large) {
@@ -238,7 +244,8 @@ final class BoundsCommand {
             sb.append(line("ADV", "not computed: " + r.reason("positive")));
         } else {
             sb.append(line("ADV", NumberText.sig(p.lower(), 8) + "   certified in [" + NumberText.sig(p.lower(), 10)
-                    + ", " + NumberText.sig(p.upper(), 10) + "]; minimax form"));
+                    + ", " + NumberText.sig(p.upper(), 10) + "]; "
+                    + (p.solvedBySdp() ? "minimax form and the SDP with Gamma >= 0" : "minimax form")));
         }
         ClassicalMeasures c = r.classical();
         if (c == null) {

@@ -100,11 +100,15 @@ public final class BoundsJson {
         if (p == null) {
             a.put("positive", Json.NULL);
             a.put("positiveUpper", Json.NULL);
+            a.put("positiveMinimax", Json.NULL);
+            a.put("positiveMethod", Json.NULL);
             reasons.put("positive", r.reason("positive"));
             reasons.put("positiveUpper", r.reason("positive"));
         } else {
             a.put("positive", p.lower());
             a.put("positiveUpper", p.upper());
+            a.put("positiveMinimax", p.minimaxUpper());
+            a.put("positiveMethod", p.solvedBySdp() ? "minimax+sdp" : "minimax");
             if (p.tightZero() >= 0) {
                 TargetFunction f = p.function();
                 Map<String, Object> tight = new LinkedHashMap<>();

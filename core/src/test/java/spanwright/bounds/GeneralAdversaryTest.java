@@ -48,6 +48,14 @@ class GeneralAdversaryTest {
      * on every pair with f(x) ≠ f(y); returns max_x Σ_i X_i[x,x] (an upper bound on ADV±).
      */
     static double checkDualFeasible(TargetFunction f, double[][][] x) {
+        return checkDualFeasible(f, x, false);
+    }
+
+    /**
+     * As {@link #checkDualFeasible(TargetFunction, double[][][])}; with {@code atLeast} the pair
+     * condition is Σ ≥ 1, the witness form of the positive-weight adversary ADV (dual of Γ ≥ 0).
+     */
+    static double checkDualFeasible(TargetFunction f, double[][][] x, boolean atLeast) {
         int n = f.variableCount();
         double scale = 1;
         for (int i = 0; i < n; i++) {
@@ -65,7 +73,11 @@ class GeneralAdversaryTest {
                         s += x[i][a][b];
                     }
                 }
-                assertEquals(1, s, FEASIBLE, "pair equation at " + f.format(f.input(a)) + ", " + f.format(f.input(b)));
+                if (atLeast) {
+                    assertTrue(s >= 1 - FEASIBLE, "pair inequality at " + f.format(f.input(a)) + ", " + f.format(f.input(b)));
+                } else {
+                    assertEquals(1, s, FEASIBLE, "pair equation at " + f.format(f.input(a)) + ", " + f.format(f.input(b)));
+                }
             }
         }
         double max = 0;
@@ -87,6 +99,16 @@ class GeneralAdversaryTest {
      * least lower.
      */
     static void checkCertificates(GeneralAdversary g) {
+        checkCertificates(g, false);
+    }
+
+    /**
+     * As {@link #checkCertificates(GeneralAdversary)}; with {@code positiveWeights} (the SDP of
+     * {@link GeneralAdversary#positiveWeights}) Γ must also be entrywise ≥ 0 and the witness meets
+     * the pair inequalities Σ ≥ 1 (Barnum, Saks &amp; Szegedy, CCC 2003: ADV is the same SDP with
+     * Γ ≥ 0).
+     */
+    static void checkCertificates(GeneralAdversary g, boolean positiveWeights) {
         TargetFunction f = g.function();
         int n = f.variableCount();
         int size = f.size();
@@ -102,6 +124,9 @@ class GeneralAdversaryTest {
                     assertEquals(0, gamma[a][b], 0);
                 }
                 objective += gamma[a][b];
+                if (positiveWeights) {
+                    assertTrue(gamma[a][b] >= 0, "Γ has a negative entry");
+                }
             }
         }
         if (g.status() == GeneralAdversary.Status.CONSTANT) {
@@ -127,7 +152,7 @@ class GeneralAdversaryTest {
         for (int i = 0; i < n; i++) {
             x[i] = g.witnessMatrix(i);
         }
-        double dualValue = checkDualFeasible(f, x);
+        double dualValue = checkDualFeasible(f, x, positiveWeights);
         assertEquals(g.upper(), dualValue, 1e-9 * Math.max(1, dualValue));
         assertTrue(g.lower() <= g.upper() + 1e-9, "weak duality");
         // spectral form on the support of α
