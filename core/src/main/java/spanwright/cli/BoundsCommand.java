@@ -130,14 +130,13 @@ final class BoundsCommand {
         return new TargetFunction(TargetFunction.names("x", n), x, v);
     }
 
-    /** Wall-clock seconds of each computation on three seeded random functions (one core). */
     /**
      * The demo table of docs/bounds.md, one row per scenario file, from the same computation as
      * {@code bounds FILE} (so the document cannot drift from the code).
      */
     private static void docTable(List<String> files, PrintStream out) {
-        out.println("| scenario | ADV± certified interval | status | ADV certified interval | √(W₊W₋) (optimised) | gap | D | speed-up |");
-        out.println("|---|---|---|---|---|---|---|---|");
+        out.println("| scenario | ADV± certified interval | relative width | status | ADV certified interval | relative width | √(W₊W₋) (optimised) | gap | D | speed-up |");
+        out.println("|---|---|---|---|---|---|---|---|---|---|");
         for (String file : files) {
             Scenario sc = ScenarioReader.read(Main.readScenarioText(file));
             BoundsReport r = Bounds.compute(sc, Bounds.Limits.CLI);
@@ -146,8 +145,10 @@ final class BoundsCommand {
             String name = file.replaceAll(".*/", "").replace(".json", "");
             out.println("| " + name + " (" + sc.variableCount() + " variables) | "
                     + (g == null ? "—" : "[" + NumberText.sig(g.lower(), 7) + ", " + NumberText.sig(g.upper(), 7) + "]") + " | "
+                    + (g == null ? "—" : relativeWidth(g.lower(), g.upper())) + " | "
                     + (g == null ? "—" : describe(g)) + " | "
                     + (p == null ? "—" : "[" + NumberText.sig(p.lower(), 7) + ", " + NumberText.sig(p.upper(), 7) + "]") + " | "
+                    + (p == null ? "—" : relativeWidth(p.lower(), p.upper())) + " | "
                     + NumberText.sig(r.complexity(), 6)
                     + (r.optimised() == null ? "" : " (" + NumberText.sig(r.optimisedComplexity(), 6) + ")") + " | "
                     + NumberText.sig(r.optimalityGap(), 5) + " | "
@@ -156,6 +157,13 @@ final class BoundsCommand {
         }
     }
 
+    /** (upper − lower) / upper to two figures; "0" for a point, "below 1e-9" under the solvers' tolerance. */
+    private static String relativeWidth(double lower, double upper) {
+        double w = upper > 0 ? (upper - lower) / upper : 0;
+        return w <= 0 ? "0" : w < 1e-9 ? "below 1e-9" : NumberText.sig(w, 2);
+    }
+
+    /** Wall-clock seconds of each computation on three seeded random functions (one core). */
     private static void bench(long seed, boolean large, PrintStream out) {
         out.println("bounds benchmark (seeded random functions on the whole cube; one core; seconds per function)");
         // warm up the JIT on a small case
