@@ -121,7 +121,9 @@ public final class Bounds {
             reasons.put("positive", tooMany(n, limits.positive(), Limits.CLI.positive(), "the positive adversary", limits));
         } else {
             positive = PositiveAdversary.compute(f,
-                    limits == Limits.PAGE ? PositiveAdversary.PAGE_SDP_MAX_VARIABLES : PositiveAdversary.SDP_MAX_VARIABLES);
+                    // the SDP only where the caller affords ADV±'s SDP too (same order of cost)
+                    limits == Limits.PAGE ? PositiveAdversary.PAGE_SDP_MAX_VARIABLES
+                            : Math.min(limits.general(), PositiveAdversary.SDP_MAX_VARIABLES));
         }
         ClassicalMeasures classical = null;
         if (n > limits.classical()) {

@@ -153,6 +153,8 @@ public final class GeneralAdversary implements CertifiedBound {
      * interval carried by a {@code GeneralAdversary} (package use only, by
      * {@link PositiveAdversary}); null when the SDP is too large for the interior-point method
      * (m &gt; {@link #INTERIOR_POINT_MAX_CONSTRAINTS}, i.e. beyond six variables on the whole cube).
+     * The symmetry plan of the splitting method applies unchanged: the slack blocks are their own
+     * representatives, and pairs in one orbit have equal slacks.
      *
      * <p>Γ ≥ 0 makes each pair equation an inequality Σ_{i: x_i≠y_i} X_i[x,y] ≥ 1 (the witness
      * form of ADV, dual of the spectral form max ‖Γ‖ / max_i ‖Γ∘Δ_i‖ over non-negative Γ of
@@ -162,12 +164,20 @@ public final class GeneralAdversary implements CertifiedBound {
      * repairs only pairs with Σ X &lt; 1, then shifts each block to PSD as for ADV±.
      */
     static GeneralAdversary positiveWeights(TargetFunction f) {
+        return positiveWeights(f, false);
+    }
+
+    /**
+     * As {@link #positiveWeights(TargetFunction)}; with {@code splitting} a larger SDP is solved by
+     * the splitting method instead of returning null (command line, 7 and 8 variables).
+     */
+    static GeneralAdversary positiveWeights(TargetFunction f, boolean splitting) {
         if (f.isConstant()) {
             return compute(f, Method.INTERIOR_POINT, true);
         }
         long pairs = (long) f.zerosCount() * f.onesCount();
         if (pairs + f.size() > INTERIOR_POINT_MAX_CONSTRAINTS) {
-            return null;
+            return splitting ? compute(f, Method.SPLITTING, true) : null;
         }
         return compute(f, Method.INTERIOR_POINT, true);
     }

@@ -42,13 +42,16 @@ import java.util.Arrays;
  */
 public final class PositiveAdversary implements CertifiedBound {
     /**
-     * Up to this many variables {@link #compute(TargetFunction)} also solves the SDP with Γ ≥ 0
-     * (interior point, m ≤ {@link GeneralAdversary#INTERIOR_POINT_MAX_CONSTRAINTS}): about 2 s on
-     * one JVM core at 6 variables, and the interval then closes to about 1e-9 relative, where the
-     * minimax optimisation alone leaves its lower end 0.1–0.4 % low and its upper end up to 1e-5
-     * high (measured on seeded random functions of 5 and 6 variables).
+     * Up to this many variables {@link #compute(TargetFunction)} also solves the SDP with Γ ≥ 0:
+     * by the interior-point method while m ≤ {@link GeneralAdversary#INTERIOR_POINT_MAX_CONSTRAINTS}
+     * (about 2 s on one JVM core at 6 variables; the interval then closes to about 1e-9 relative,
+     * where the minimax optimisation alone leaves its lower end 0.1–0.4 % low and its upper end up
+     * to 1e-5 high, measured on seeded random functions of 5 and 6 variables), beyond that by the
+     * splitting method when the minimax interval is wider than 1e-6 relative (7 variables: up to
+     * 6,000 iterations, about 40 s of CPU on the mine-rescue demo, whose width falls from 8 % to
+     * 2e-4).
      */
-    public static final int SDP_MAX_VARIABLES = 6;
+    public static final int SDP_MAX_VARIABLES = 7;
     /**
      * The page's limit for the SDP: 5 variables (at 6 the SDP would roughly double the page's
      * bounds time, which is already 13–17 s there for ADV±).
@@ -227,7 +230,10 @@ public final class PositiveAdversary implements CertifiedBound {
         double upper = 1 / min;
         double minimaxUpper = upper;
         boolean bySdp = false;
-        GeneralAdversary sdp = n <= sdpMaxVariables ? GeneralAdversary.positiveWeights(f) : null;
+        // beyond the interior-point size the splitting method runs (minutes at 7 variables), so
+        // only when the minimax interval is wider than the splitting method's own stop rule
+        boolean wide = upper - bestLower > GeneralAdversary.SPLITTING_RELATIVE_GAP * upper;
+        GeneralAdversary sdp = n <= sdpMaxVariables ? GeneralAdversary.positiveWeights(f, wide) : null;
         if (sdp != null) {
             bestLower = Math.max(bestLower, sdp.lower());
             if (sdp.upper() < upper) {

@@ -37,8 +37,9 @@ final class BoundsCommand {
                 + "      certified interval; up to " + GeneralAdversary.CLI_MAX_VARIABLES
                 + " variables, minutes beyond 6), the positive adversary ADV, and D, C0, C1,\n"
                 + "      s, bs, deg with witnesses; the optimality gap sqrt(W+ W-)/ADV+- and the speed-up D/sqrt(W+ W-).\n"
-                + "      --bench times ADV+- for seeded random 5- and 6-variable functions, ADV and the classical\n"
-                + "      measures for 10 variables; --large adds ADV+- for 7- and 8-variable functions (minutes).\n"
+                + "      --bench times ADV+- and ADV for seeded random 5- and 6-variable functions, ADV and the\n"
+                + "      classical measures for 10 variables; --large adds ADV+- for 7- and 8-variable functions and\n"
+                + "      ADV for the 7-variable ones (minutes).\n"
                 + "      --doc-table prints the demo table of docs/bounds.md for the given scenarios.\n";
     }
 
@@ -210,6 +211,16 @@ final class BoundsCommand {
                         + 2 * f.variableCount() + " blocks decomposed, " + g.iterations() + " iterations, " + describe(g)
                         + "; [" + NumberText.sig(g.lower(), 9) + ", " + NumberText.sig(g.upper(), 9) + "], relative width "
                         + NumberText.sig(g.gap() / g.upper(), 2));
+                if (f.variableCount() <= PositiveAdversary.SDP_MAX_VARIABLES) {
+                    cpu = mx.getCurrentThreadCpuTime();
+                    t = System.nanoTime();
+                    PositiveAdversary p = PositiveAdversary.compute(f);
+                    out.println("  ADV    n = " + f.variableCount() + "  " + names.get(k) + ": " + NumberText.sig((System.nanoTime() - t) / 1e9, 3)
+                            + " s wall, " + NumberText.sig((mx.getCurrentThreadCpuTime() - cpu) / 1e9, 3) + " s CPU; "
+                            + (p.solvedBySdp() ? "minimax and SDP" : "minimax") + ", ADV in [" + NumberText.sig(p.lower(), 9) + ", "
+                            + NumberText.sig(p.upper(), 9) + "], relative width " + NumberText.sig((p.upper() - p.lower()) / p.upper(), 2)
+                            + " (minimax alone: upper " + NumberText.sig(p.minimaxUpper(), 9) + ")");
+                }
             }
         }
         for (int k = 0; k < 3; k++) {
