@@ -247,6 +247,26 @@ class SpectrumTest {
     }
 
     @Test
+    void aPhaseGapOfExactlyPiIsReportedAsPi() {
+        // Derived: one s–t edge of weight 1, α = 1, edge present. Ã = (|s⟩ − |t⟩)(⟨0| + ⟨e|), so
+        // ker Ã = span{(|0⟩ − |e⟩)/√2} and D(x) = I: U = 2Π_K − I has eigenvalue +1 on ker Ã and −1 on
+        // (|0⟩ + |e⟩)/√2. |0⟩ has weight 1/2 on each (= α²/(α² + R) with R = 1 at phase 0), and the
+        // only non-zero phase, hence the phase gap, is exactly π.
+        Scenario sc = QuantumNets.or(1, null);
+        SpectrumSolver solver = new SpectrumSolver(new SpanProgramUnitary(sc, 1));
+        InputSimulation r = solve(solver, sc, 1);
+        assertEquals(Math.PI, r.phaseGap, 1e-15);
+        assertEquals(Math.PI, r.weightedPhaseGap, 1e-15);
+        assertEquals(0.5, r.phaseZeroWeight, 1e-15);
+        double[] p = r.spectrumPhases();
+        double[] w = r.spectrumWeights();
+        assertEquals(2, p.length);
+        assertEquals(0, p[0], 1e-15);
+        assertEquals(Math.PI, p[1], 1e-15);
+        assertEquals(0.5, w[1], 1e-15);
+    }
+
+    @Test
     void weightsSumToOneAndPhasesMatchEjmlsGeneralEigenvalues() {
         // Parseval: |0⟩ is a unit vector and the eigenbasis is orthonormal, so the weights sum to 1
         // (identity). Independent computation: EJML's nonsymmetric eigenvalue algorithm on U(x)
