@@ -311,6 +311,26 @@ class GeneralAdversaryTest {
         }
     }
 
+    @Tag("slow")
+    @Test
+    void interiorPointTakesOverAtSevenVariables() {
+        // a seeded random 7-variable function on a random 70 % of the cube: m between the two
+        // interior-point limits and no symmetry, so the interior-point method runs at once. Checks:
+        // both certificates on the full matrices (EJML), the width, and an independent solver —
+        // the splitting method forced on the same SDP — whose certified interval must overlap
+        TargetFunction f = Functions.random(7, 3, true);
+        GeneralAdversary g = GeneralAdversary.compute(f);
+        assertTrue(g.constraintCount() > GeneralAdversary.INTERIOR_POINT_MAX_CONSTRAINTS
+                && g.constraintCount() <= GeneralAdversary.INTERIOR_POINT_FALLBACK_CONSTRAINTS, "m = " + g.constraintCount());
+        assertEquals(GeneralAdversary.Method.INTERIOR_POINT, g.method());
+        assertEquals(GeneralAdversary.Status.CONVERGED, g.status());
+        checkCertificates(g);
+        assertTrue(g.gap() <= 1e-6 * g.upper(), "width " + g.gap());
+        GeneralAdversary s = GeneralAdversary.compute(f, GeneralAdversary.Method.SPLITTING);
+        assertTrue(s.lower() <= g.upper() * (1 + 1e-12) && g.lower() <= s.upper() * (1 + 1e-12),
+                "[" + g.lower() + ", " + g.upper() + "] and [" + s.lower() + ", " + s.upper() + "] must overlap");
+    }
+
     @Test
     void splittingMethodAgreesWithInteriorPoint() {
         // independent computation: the splitting method (a different algorithm on the same SDP)
