@@ -66,8 +66,9 @@ public final class GeneralAdversary implements CertifiedBound {
      * when the splitting method has not converged after {@link #SPLITTING_TRIAL_ITERATIONS}, or at
      * once when f has no symmetry to exploit. Its dense m×m Schur complement then needs about
      * 3·8m² bytes (0.4 GB at m = 4,224) and its Cholesky factorisation about m³/3 flops per
-     * iteration (measured: 3.4 s CPU per iteration, 22 iterations to 1e-9, on a random 7-variable
-     * function), against the splitting method's 6,000 iterations for about 1e-5.
+     * iteration (measured: about 3 s CPU per iteration; on random 7-variable functions 16–17
+     * iterations to a certified width of 1e-6 from the smaller start, 22–24 to a duality gap of
+     * 1e-9 from SDPT3's), against the splitting method's 6,000 iterations for about 1e-5.
      */
     public static final int INTERIOR_POINT_FALLBACK_CONSTRAINTS = 4400;
     /** Splitting iterations tried before the interior-point method takes over (see above). */
@@ -347,17 +348,33 @@ public final class GeneralAdversary implements CertifiedBound {
             }
             iterations = solver.iterations();
             if (!converged && fallback) {
-                InteriorPointSdp ipm = new InteriorPointSdp(problem);
-                converged = ipm.solve(TOLERANCE, MAX_ITERATIONS) == InteriorPointSdp.Status.CONVERGED;
+                // the splitting method's rule at these sizes: a certified width of 1e-6 is converged,
+                // checked on the iterate once the duality gap is small (each iteration costs about
+                // 3 s at m = 4,200; with the smaller start a random 7-variable function stops after
+                // 16–17 iterations instead of 24, and a promise can leave the method stalled short
+                // of 1e-9, e.g. mine-rescue); if the smaller start fails, SDPT3's start is tried
+                InteriorPointSdp.Monitor narrow = s -> {
+                    DMatrixRMaj[] xs = new DMatrixRMaj[nb];
+                    for (int bl = 0; bl < nb; bl++) {
+                        xs[bl] = s.primal(bl).copy();
+                    }
+                    double u = certifyUpper(layout, xs, new double[nb][]);
+                    return u - certifyLower(layout, s.dual()).value <= SPLITTING_RELATIVE_GAP * u;
+                };
+                InteriorPointSdp ipm = new InteriorPointSdp(problem).smallStart();
+                converged = ipm.solve(TOLERANCE, MAX_ITERATIONS, narrow) == InteriorPointSdp.Status.CONVERGED;
                 iterations = ipm.iterations();
+                if (!converged && !narrow.enough(ipm)) {
+                    ipm = new InteriorPointSdp(problem);
+                    converged = ipm.solve(TOLERANCE, MAX_ITERATIONS, narrow) == InteriorPointSdp.Status.CONVERGED;
+                    iterations += ipm.iterations();
+                }
                 for (int bl = 0; bl < nb; bl++) {
                     xBlocks[bl] = ipm.primal(bl).copy();
                 }
                 lo = certifyLower(layout, ipm.dual());
                 up = certifyUpper(layout, xBlocks, repaired);
                 method = Method.INTERIOR_POINT;
-                // the splitting method's rule at these sizes: a certified width of 1e-6 is converged
-                // (a promise can leave the interior-point method stalled short of 1e-9, e.g. mine-rescue)
                 converged |= up - lo.value <= SPLITTING_RELATIVE_GAP * up;
             }
         }

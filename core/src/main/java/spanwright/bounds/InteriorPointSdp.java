@@ -167,10 +167,46 @@ final class InteriorPointSdp {
     }
 
     /**
+     * Asked, once the relative duality gap is below {@link #MONITOR_FROM}, at the start of each
+     * iteration whether the current iterate is good enough (e.g. its certified interval is narrow):
+     * true stops the method with {@link Status#CONVERGED}. An iteration at m ≈ 4,000 costs seconds,
+     * a certificate a fraction of one.
+     */
+    interface Monitor {
+        boolean enough(InteriorPointSdp solver);
+    }
+
+    /**
+     * Factors on SDPT3's starting X = ξI and Z = ηI for {@link #smallStart()}. On the adversary SDP
+     * SDPT3's rule starts far outside the central path (the first four or five iterations only
+     * restore feasibility); measured on seeded random 6-variable functions, the smaller start saves
+     * about 2.5 of 20 iterations (6 to 7 of 24 at 7 variables with the certified stop), but it
+     * fails to converge on tiny SDPs (OR of 1–6 variables), so it is an option.
+     */
+    private static final double SMALL_START_PRIMAL = 0.01;
+    private static final double SMALL_START_DUAL = 0.1;
+
+    private boolean smallStart;
+
+    /** Starts from SDPT3's X and Z scaled by 0.01 and 0.1 (see {@link #SMALL_START_PRIMAL}). */
+    InteriorPointSdp smallStart() {
+        smallStart = true;
+        return this;
+    }
+
+    /** Relative duality gap below which a {@link Monitor} is consulted. */
+    static final double MONITOR_FROM = 1e-4;
+
+    /**
      * Runs the method until the relative duality gap and the relative primal and dual
      * infeasibilities are all below {@code tolerance}, or {@code maxIterations} pass.
      */
     Status solve(double tolerance, int maxIterations) {
+        return solve(tolerance, maxIterations, null);
+    }
+
+    /** As {@link #solve(double, int)}, also stopping when {@code monitor} (may be null) says so. */
+    Status solve(double tolerance, int maxIterations, Monitor monitor) {
         initialise();
         double bNorm = Math.sqrt(SdpProblem.dot(p.b, p.b));
         double cNorm = SdpProblem.frobenius(cost);
@@ -195,6 +231,10 @@ final class InteriorPointSdp {
             double pinf = Math.sqrt(SdpProblem.dot(rp, rp)) / (1 + bNorm);
             double dinf = SdpProblem.frobenius(rd) / (1 + cNorm);
             if (gap < tolerance && pinf < tolerance && dinf < tolerance) {
+                status = Status.CONVERGED;
+                break;
+            }
+            if (monitor != null && gap < MONITOR_FROM && monitor.enough(this)) {
                 status = Status.CONVERGED;
                 break;
             }
@@ -306,6 +346,10 @@ final class InteriorPointSdp {
             eta = Math.max(eta, an);
         }
         eta = Math.max(eta, SdpProblem.frobenius(cost));
+        if (smallStart) {
+            xi *= SMALL_START_PRIMAL;
+            eta *= SMALL_START_DUAL;
+        }
         for (int bl = 0; bl < nb; bl++) {
             x[bl].zero();
             z[bl].zero();
