@@ -62,17 +62,16 @@ public final class GeneralAdversary implements CertifiedBound {
     /** Largest m (pairs + inputs) solved by the interior-point method first; larger SDPs use splitting. */
     public static final int INTERIOR_POINT_MAX_CONSTRAINTS = 1200;
     /**
-     * Up to this m (7 variables on the whole cube: m ≤ 4,224) the interior-point method takes over
-     * when the splitting method has not converged after {@link #SPLITTING_TRIAL_ITERATIONS}, or at
-     * once when f has no symmetry to exploit. Its dense m×m Schur complement then needs about
-     * 3·8m² bytes (0.4 GB at m = 4,224) and its Cholesky factorisation about m³/3 flops per
-     * iteration (measured: about 3 s CPU per iteration; on random 7-variable functions 16–17
+     * Beyond {@link #INTERIOR_POINT_MAX_CONSTRAINTS} the interior-point method runs when its Schur
+     * system has at most this order: m, or the number of constraint orbits under f's symmetries
+     * ({@link InteriorPointSdp#constraintOrbits}) — every 7-variable function on the whole cube
+     * (m ≤ 4,224) and 8-variable functions with enough symmetry. A dense Schur system of order c
+     * needs about 3·8c² bytes (0.4 GB at 4,224) and its Cholesky factorisation about c³/3 flops
+     * per iteration (measured: about 3 s CPU at c = 4,200; random 7-variable functions take 16–17
      * iterations to a certified width of 1e-6 from the smaller start, 22–24 to a duality gap of
      * 1e-9 from SDPT3's), against the splitting method's 6,000 iterations for about 1e-5.
      */
     public static final int INTERIOR_POINT_FALLBACK_CONSTRAINTS = 4400;
-    /** Splitting iterations tried before the interior-point method takes over (see above). */
-    public static final int SPLITTING_TRIAL_ITERATIONS = 2000;
     /** Relative tolerance of the splitting method. */
     public static final double SPLITTING_TOLERANCE = 1e-10;
     /** Iteration limit of the splitting method. */
@@ -94,7 +93,7 @@ public final class GeneralAdversary implements CertifiedBound {
     public enum Method {
         /**
          * {@link InteriorPointSdp}: m ≤ {@link #INTERIOR_POINT_MAX_CONSTRAINTS}, or up to
-         * {@link #INTERIOR_POINT_FALLBACK_CONSTRAINTS} after (or instead of) a splitting trial.
+         * {@link #INTERIOR_POINT_FALLBACK_CONSTRAINTS} (Schur order over constraint orbits).
          */
         INTERIOR_POINT,
         /** {@link SplittingSdp}: larger m (n = 7, 8 in the CLI). */
@@ -121,6 +120,7 @@ public final class GeneralAdversary implements CertifiedBound {
     private final int iterations;
     private final int constraints;
     private int eigenBlocks;
+    private int schurOrder;
     private final int[] pairZero;
     private final int[] pairOne;
     private final double[] pairWeight;
@@ -307,6 +307,7 @@ public final class GeneralAdversary implements CertifiedBound {
         Layout layout = new Layout(f, pz, po, blockId, local, blockInputs, nonNegative);
         Certified lo;
         int symmetries = 0;
+        int schurOrder = problem.constraintCount();
         double[][] repaired = new double[nb][];
         double up;
         boolean converged;
@@ -321,38 +322,24 @@ public final class GeneralAdversary implements CertifiedBound {
             lo = certifyLower(layout, solver.dual());
             up = certifyUpper(layout, xBlocks, repaired);
         } else {
-            // splitting converges slowly near the end: stop once the certified interval is narrow;
-            // up to INTERIOR_POINT_FALLBACK_CONSTRAINTS only a trial, and only when symmetry helps
-            boolean fallback = forced == null && problem.constraintCount() <= INTERIOR_POINT_FALLBACK_CONSTRAINTS;
-            SplittingSdp solver = new SplittingSdp(problem);
-            solver.relaxation = SPLITTING_RELAXATION;
-            symmetries = symmetryPlan(layout, zeros.size(), ones.size(), solver, problem.blockCount());
-            int cap = !fallback ? SPLITTING_MAX_ITERATIONS : symmetries < nb ? SPLITTING_TRIAL_ITERATIONS : 0;
-            double stopGap = problem.constraintCount() > INTERIOR_POINT_FALLBACK_CONSTRAINTS
-                    ? SPLITTING_RELATIVE_GAP_LARGE : SPLITTING_RELATIVE_GAP;
+            // Beyond INTERIOR_POINT_MAX_CONSTRAINTS: the interior-point method first when its Schur
+            // system, over the orbits of the constraints under f's symmetries, has at most
+            // INTERIOR_POINT_FALLBACK_CONSTRAINTS rows (every 7-variable function; symmetric
+            // 8-variable ones); the splitting method otherwise, or when that fails
+            SymmetryPlan plan = symmetryPlan(layout, zeros.size(), ones.size(), problem.blockCount());
+            symmetries = plan == null ? nb : plan.blockOrbits;
+            schurOrder = plan == null ? problem.constraintCount() : plan.constraintOrbits;
             lo = null;
             up = Double.POSITIVE_INFINITY;
             converged = false;
-            while (solver.iterations() < cap) {
-                boolean done = solver.solve(SPLITTING_TOLERANCE,
-                        Math.min(SPLITTING_CHECK_INTERVAL, cap - solver.iterations()));
-                for (int bl = 0; bl < nb; bl++) {
-                    xBlocks[bl] = solver.primal(bl).copy();
-                }
-                lo = certifyLower(layout, solver.dual());
-                up = certifyUpper(layout, xBlocks, repaired);
-                converged = done || up - lo.value <= stopGap * up;
-                if (converged) {
-                    break;
-                }
-            }
-            iterations = solver.iterations();
-            if (!converged && fallback) {
+            iterations = 0;
+            double[][] ipmRepaired = null;
+            if (forced == null && schurOrder <= INTERIOR_POINT_FALLBACK_CONSTRAINTS) {
                 // the splitting method's rule at these sizes: a certified width of 1e-6 is converged,
                 // checked on the iterate once the duality gap is small (each iteration costs about
-                // 3 s at m = 4,200; with the smaller start a random 7-variable function stops after
-                // 16–17 iterations instead of 24, and a promise can leave the method stalled short
-                // of 1e-9, e.g. mine-rescue); if the smaller start fails, SDPT3's start is tried
+                // 3 s at a Schur order of 4,200; with the smaller start a random 7-variable function
+                // stops after 16–17 iterations instead of 24, and a promise can leave the method
+                // stalled short of 1e-9, e.g. mine-rescue); if the smaller start fails, SDPT3's
                 InteriorPointSdp.Monitor narrow = s -> {
                     DMatrixRMaj[] xs = new DMatrixRMaj[nb];
                     for (int bl = 0; bl < nb; bl++) {
@@ -361,11 +348,11 @@ public final class GeneralAdversary implements CertifiedBound {
                     double u = certifyUpper(layout, xs, new double[nb][]);
                     return u - certifyLower(layout, s.dual()).value <= SPLITTING_RELATIVE_GAP * u;
                 };
-                InteriorPointSdp ipm = new InteriorPointSdp(problem).smallStart();
+                InteriorPointSdp ipm = withOrbits(new InteriorPointSdp(problem).smallStart(), plan);
                 converged = ipm.solve(TOLERANCE, MAX_ITERATIONS, narrow) == InteriorPointSdp.Status.CONVERGED;
                 iterations = ipm.iterations();
                 if (!converged && !narrow.enough(ipm)) {
-                    ipm = new InteriorPointSdp(problem);
+                    ipm = withOrbits(new InteriorPointSdp(problem), plan);
                     converged = ipm.solve(TOLERANCE, MAX_ITERATIONS, narrow) == InteriorPointSdp.Status.CONVERGED;
                     iterations += ipm.iterations();
                 }
@@ -376,13 +363,56 @@ public final class GeneralAdversary implements CertifiedBound {
                 up = certifyUpper(layout, xBlocks, repaired);
                 method = Method.INTERIOR_POINT;
                 converged |= up - lo.value <= SPLITTING_RELATIVE_GAP * up;
+                ipmRepaired = repaired.clone();
+            }
+            if (!converged) {
+                // splitting converges slowly near the end: stop once the certified interval is narrow
+                Certified ipmLo = lo;
+                double ipmUp = up;
+                int ipmIterations = iterations;
+                SplittingSdp solver = new SplittingSdp(problem);
+                solver.relaxation = SPLITTING_RELAXATION;
+                if (plan != null) {
+                    solver.symmetry(plan.rep, plan.perm, plan.orbit);
+                }
+                double stopGap = problem.constraintCount() > INTERIOR_POINT_FALLBACK_CONSTRAINTS
+                        ? SPLITTING_RELATIVE_GAP_LARGE : SPLITTING_RELATIVE_GAP;
+                while (solver.iterations() < SPLITTING_MAX_ITERATIONS) {
+                    boolean done = solver.solve(SPLITTING_TOLERANCE,
+                            Math.min(SPLITTING_CHECK_INTERVAL, SPLITTING_MAX_ITERATIONS - solver.iterations()));
+                    for (int bl = 0; bl < nb; bl++) {
+                        xBlocks[bl] = solver.primal(bl).copy();
+                    }
+                    lo = certifyLower(layout, solver.dual());
+                    up = certifyUpper(layout, xBlocks, repaired);
+                    converged = done || up - lo.value <= stopGap * up;
+                    if (converged) {
+                        break;
+                    }
+                }
+                method = Method.SPLITTING;
+                iterations = solver.iterations();
+                if (ipmLo != null && ipmUp - ipmLo.value < up - lo.value) {
+                    // the failed interior-point run left the narrower interval: keep it
+                    lo = ipmLo;
+                    up = ipmUp;
+                    System.arraycopy(ipmRepaired, 0, repaired, 0, nb);
+                    method = Method.INTERIOR_POINT;
+                    iterations = ipmIterations;
+                }
             }
         }
         Status status = converged ? Status.CONVERGED : Status.NOT_CONVERGED;
         GeneralAdversary result = new GeneralAdversary(f, lo.value, up, status, method, iterations, problem.constraintCount(),
                 pz, po, lo.pairWeight, lo.inputWeight, blockInputs, blockVar, repaired);
         result.eigenBlocks = method == Method.SPLITTING ? symmetries : nb;
+        result.schurOrder = method == Method.INTERIOR_POINT ? schurOrder : 0;
         return result;
+    }
+
+    /** The solver with f's constraint orbits declared (none when {@code plan} is null). */
+    private static InteriorPointSdp withOrbits(InteriorPointSdp ipm, SymmetryPlan plan) {
+        return plan == null ? ipm : ipm.constraintOrbits(plan.orbit);
     }
 
     /**
@@ -390,12 +420,12 @@ public final class GeneralAdversary implements CertifiedBound {
      * they generate on its blocks and constraints; returns the number of blocks that need an
      * eigendecomposition per iteration (all of them when f has no symmetry found). O(|G|·(m + Σd)).
      */
-    private static int symmetryPlan(Layout lay, int zeroCount, int oneCount, SplittingSdp solver, int sdpBlocks) {
+    private static SymmetryPlan symmetryPlan(Layout lay, int zeroCount, int oneCount, int sdpBlocks) {
         TargetFunction f = lay.f;
         List<InputSymmetry.Generator> gens = InputSymmetry.generators(f);
         int nb = lay.blockInputs.length;
         if (gens.isEmpty()) {
-            return nb;
+            return null;
         }
         int size = f.size();
         int pairs = lay.pairZero.length;
@@ -492,8 +522,29 @@ public final class GeneralAdversary implements CertifiedBound {
             }
             orbit[k] = label[r];
         }
-        solver.symmetry(rep, perm, orbit);
-        return reps;
+        return new SymmetryPlan(rep, perm, orbit, reps);
+    }
+
+    /** What {@link #symmetryPlan} found: block representatives and maps, constraint orbits. */
+    private static final class SymmetryPlan {
+        final int[] rep;
+        final int[][] perm;
+        final int[] orbit;
+        /** Blocks eigendecomposed per splitting iteration (one per orbit of blocks). */
+        final int blockOrbits;
+        final int constraintOrbits;
+
+        SymmetryPlan(int[] rep, int[][] perm, int[] orbit, int blockOrbits) {
+            this.rep = rep;
+            this.perm = perm;
+            this.orbit = orbit;
+            this.blockOrbits = blockOrbits;
+            int c = 0;
+            for (int o : orbit) {
+                c = Math.max(c, o + 1);
+            }
+            this.constraintOrbits = c;
+        }
     }
 
     private static int find(int[] parent, int k) {
@@ -830,6 +881,14 @@ public final class GeneralAdversary implements CertifiedBound {
      */
     public int eigenBlocks() {
         return eigenBlocks;
+    }
+
+    /**
+     * Order of the interior-point method's Schur system: m, or the number of constraint orbits
+     * under f's symmetries beyond six variables; 0 when the splitting method gave the result.
+     */
+    public int schurOrder() {
+        return schurOrder;
     }
 
     /** m, the number of SDP constraints (pairs + inputs). */

@@ -71,7 +71,11 @@ final class InteriorPointSdp {
     private final DMatrixRMaj[] corr;
     private final CholeskyDecomposition_F64<DMatrixRMaj>[] chol;
     private final EigenDecomposition_F64<DMatrixRMaj>[] eig;
-    private final DMatrixRMaj schur;
+    /** The Schur complement (m×m, or orbits×orbits with {@link #constraintOrbits}); made by solve. */
+    private DMatrixRMaj schur;
+    /** Orbit of each constraint under a symmetry group of the problem, or null; see {@link #constraintOrbits}. */
+    private int[] orbitOf;
+    private int orbitCount;
     private final double[] rp;
     private final double[] rhs;
     private final double[] work;
@@ -160,7 +164,6 @@ final class InteriorPointSdp {
             eig[bl] = DecompositionFactory_DDRM.eig(size[bl], false, true);
         }
         y = new double[m];
-        schur = new DMatrixRMaj(m, m);
         rp = new double[m];
         rhs = new double[m];
         work = new double[m];
@@ -208,11 +211,13 @@ final class InteriorPointSdp {
     /** As {@link #solve(double, int)}, also stopping when {@code monitor} (may be null) says so. */
     Status solve(double tolerance, int maxIterations, Monitor monitor) {
         initialise();
+        int reduced = schurSize();
+        schur = new DMatrixRMaj(reduced, reduced);
         double bNorm = Math.sqrt(SdpProblem.dot(p.b, p.b));
         double cNorm = SdpProblem.frobenius(cost);
         iterations = 0;
         status = Status.ITERATION_LIMIT;
-        LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.symmPosDef(m);
+        LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.symmPosDef(reduced);
         for (int it = 0; it < maxIterations; it++) {
             // residuals and measures
             p.apply(x, work);
@@ -304,10 +309,23 @@ final class InteriorPointSdp {
 
     /** Δy into {@link #work}, then ΔZ and ΔX; the corrector adds the second-order term. */
     private void direction(LinearSolverDense<DMatrixRMaj> solver, double[] right, double sigmaMu, boolean corrector) {
-        DMatrixRMaj bvec = DMatrixRMaj.wrap(m, 1, right.clone());
-        DMatrixRMaj sol = new DMatrixRMaj(m, 1);
-        solver.solve(bvec, sol);
-        System.arraycopy(sol.data, 0, work, 0, m);
+        if (orbitOf == null) {
+            DMatrixRMaj bvec = DMatrixRMaj.wrap(m, 1, right.clone());
+            DMatrixRMaj sol = new DMatrixRMaj(m, 1);
+            solver.solve(bvec, sol);
+            System.arraycopy(sol.data, 0, work, 0, m);
+        } else {
+            // Pᵀ M P ỹ = Pᵀ r with P the constraint-to-orbit indicator; Δy = P ỹ
+            DMatrixRMaj bvec = new DMatrixRMaj(orbitCount, 1);
+            for (int k = 0; k < m; k++) {
+                bvec.data[orbitOf[k]] += right[k];
+            }
+            DMatrixRMaj sol = new DMatrixRMaj(orbitCount, 1);
+            solver.solve(bvec, sol);
+            for (int k = 0; k < m; k++) {
+                work[k] = sol.data[orbitOf[k]];
+            }
+        }
         p.adjoint(work, dz);
         for (int bl = 0; bl < nb; bl++) {
             CommonOps_DDRM.subtract(rd[bl], dz[bl], dz[bl]);
@@ -416,6 +434,10 @@ final class InteriorPointSdp {
 
     /** M_kl = Σ_blocks tr(A_k X A_l Z⁻¹), assembled from the directed sparse entries. */
     private void buildSchur() {
+        if (orbitOf != null) {
+            buildReducedSchur();
+            return;
+        }
         schur.zero();
         double[] md = schur.data;
         for (int bl = 0; bl < nb; bl++) {
@@ -451,16 +473,85 @@ final class InteriorPointSdp {
         }
     }
 
+    /**
+     * S = Pᵀ M P over constraint orbits (P the constraint-to-orbit indicator), S_KL = Σ_{k∈K, l∈L}
+     * M_kl from every row of M: with X and Z exactly invariant one row per orbit would do, but
+     * their rounding drift then spoils the direction (measured: 58 iterations instead of 13 on a
+     * 7-leaf read-once formula), while the projection stays the exact Newton system restricted to
+     * invariant Δy. Costs what {@link #buildSchur} costs; the factorisation is c×c.
+     */
+    private void buildReducedSchur() {
+        schur.zero();
+        int c = orbitCount;
+        double[] sd = schur.data;
+        for (int bl = 0; bl < nb; bl++) {
+            int s = size[bl];
+            double[] xd = x[bl].data;
+            double[] zd = zInv[bl].data;
+            int[] ks = slotConstraint[bl];
+            int[] st = slotStart[bl];
+            int[] er = entryRow[bl];
+            int[] ec = entryCol[bl];
+            double[] ev = entryValue[bl];
+            for (int a = 0; a < ks.length; a++) {
+                int kk = orbitOf[ks[a]];
+                for (int b2 = 0; b2 < ks.length; b2++) {
+                    double sum = 0;
+                    for (int e = st[a]; e < st[a + 1]; e++) {
+                        int r = er[e];
+                        int col = ec[e];
+                        double v = ev[e];
+                        for (int f = st[b2]; f < st[b2 + 1]; f++) {
+                            sum += v * ev[f] * xd[col * s + er[f]] * zd[ec[f] * s + r];
+                        }
+                    }
+                    sd[kk * c + orbitOf[ks[b2]]] += sum;
+                }
+            }
+        }
+        // symmetric up to the order of summation
+        for (int k = 0; k < c; k++) {
+            for (int l = k + 1; l < c; l++) {
+                double v = 0.5 * (sd[k * c + l] + sd[l * c + k]);
+                sd[k * c + l] = v;
+                sd[l * c + k] = v;
+            }
+        }
+    }
+
+    /**
+     * Declares orbits of the constraints under a group of symmetries of the problem (signed
+     * permutations of the blocks that map constraints to constraints, b and C invariant). The
+     * start and every direction are then invariant, so y is constant on each orbit and the Schur
+     * system is solved over orbits: a c×c Cholesky factorisation (c = number of orbits) instead of
+     * m×m. Call before {@link #solve}.
+     */
+    InteriorPointSdp constraintOrbits(int[] orbit) {
+        int c = 0;
+        for (int o : orbit) {
+            c = Math.max(c, o + 1);
+        }
+        orbitOf = orbit.clone();
+        orbitCount = c;
+        return this;
+    }
+
+    /** Order of the Schur system: m, or the number of constraint orbits. */
+    int schurSize() {
+        return orbitOf == null ? m : orbitCount;
+    }
+
     /** Cholesky of the Schur complement, with a growing diagonal shift if it is not numerically PD. */
     private boolean factor(LinearSolverDense<DMatrixRMaj> solver) {
         double maxDiag = 0;
-        for (int k = 0; k < m; k++) {
+        int order = schur.numRows;
+        for (int k = 0; k < order; k++) {
             maxDiag = Math.max(maxDiag, schur.get(k, k));
         }
         double shift = 0;
         for (int attempt = 0; attempt < 6; attempt++) {
             DMatrixRMaj a = schur.copy();
-            for (int k = 0; k < m; k++) {
+            for (int k = 0; k < order; k++) {
                 a.add(k, k, shift);
             }
             if (solver.setA(a)) {

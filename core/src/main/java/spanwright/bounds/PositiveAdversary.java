@@ -47,9 +47,9 @@ public final class PositiveAdversary implements CertifiedBound {
      * (about 2 s on one JVM core at 6 variables; the interval then closes to about 1e-9 relative,
      * where the minimax optimisation alone leaves its lower end 0.1–0.4 % low and its upper end up
      * to 1e-5 high, measured on seeded random functions of 5 and 6 variables), beyond that as ADV±
-     * is solved at 7 variables (splitting trial where symmetry helps, then interior point) when
+     * is solved beyond six variables (interior point over constraint orbits, else splitting) when
      * the minimax interval is wider than 1e-6 relative: the mine-rescue demo's width falls from
-     * 8 % to 3.5e-8, at 1–2 minutes of CPU for a 7-variable function.
+     * 8 % to 3.5e-7 (figures for 7-variable functions: docs/bounds.md).
      */
     public static final int SDP_MAX_VARIABLES = 7;
     /**

@@ -331,6 +331,27 @@ class GeneralAdversaryTest {
                 "[" + g.lower() + ", " + g.upper() + "] and [" + s.lower() + ", " + s.upper() + "] must overlap");
     }
 
+    @Tag("slow")
+    @Test
+    void interiorPointOverConstraintOrbitsAtSevenVariables() {
+        // x1 ⊕ (x2∧x3) ⊕ (x4∨x5) ⊕ (x6∧¬x7): an XOR of functions on disjoint variables with ADV±
+        // 1, √2, √2, √2, so ADV± = 1 + 3√2 (composition of the general adversary, Lee, Mittal,
+        // Reichardt, Špalek & Szegedy, FOCS 2011, with the weighted parity's value Σ of the
+        // weights — from memory). f has symmetries (x2↔x3, x4↔x5 and their compositions),
+        // so the Schur system is solved over constraint orbits, far smaller than m
+        TargetFunction f = Functions.of(7, "x1 ^ (x2 & x3) ^ (x4 | x5) ^ (x6 & !x7)");
+        GeneralAdversary g = GeneralAdversary.compute(f);
+        assertEquals(GeneralAdversary.Method.INTERIOR_POINT, g.method());
+        assertTrue(g.schurOrder() > 0 && g.schurOrder() < g.constraintCount() / 4,
+                "Schur order " + g.schurOrder() + " of m = " + g.constraintCount());
+        checkCertificates(g);
+        double expected = 1 + 3 * Math.sqrt(2);
+        assertTrue(g.lower() <= expected * (1 + 1e-9) && expected <= g.upper() * (1 + 1e-9),
+                "[" + g.lower() + ", " + g.upper() + "] misses " + expected);
+        assertTrue(g.gap() <= 1e-6 * g.upper(), "width " + g.gap());
+        assertEquals(GeneralAdversary.Status.CONVERGED, g.status());
+    }
+
     @Test
     void splittingMethodAgreesWithInteriorPoint() {
         // independent computation: the splitting method (a different algorithm on the same SDP)
