@@ -209,7 +209,7 @@ final class BoundsCommand {
                 out.println("  ADV+-  n = " + f.variableCount() + "  " + names.get(k) + ": " + NumberText.sig(wall, 3) + " s wall, "
                         + NumberText.sig(used, 3) + " s CPU; m = " + g.constraintCount()
                         + (g.schurOrder() > 0 ? ", Schur order " + g.schurOrder() : "") + ", " + g.eigenBlocks() + " of "
-                        + 2 * f.variableCount() + " blocks decomposed, " + g.iterations() + " iterations, " + describe(g)
+                        + 2 * f.variableCount() + " blocks decomposed, " + describe(g)
                         + "; [" + NumberText.sig(g.lower(), 9) + ", " + NumberText.sig(g.upper(), 9) + "], relative width "
                         + NumberText.sig(g.gap() / g.upper(), 2));
                 if (f.variableCount() <= PositiveAdversary.SDP_MAX_VARIABLES) {
