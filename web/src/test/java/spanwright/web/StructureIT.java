@@ -164,8 +164,7 @@ class StructureIT {
         page.waitForAnalysis(serial, WAIT);
         long wall = (System.nanoTime() - t0) / 1_000_000;
         assertEquals("ready", page.js("return document.body.dataset.analysis;"), page.$("error-box").getText());
-        // positions are the engine's circle layout, computed by the browser's Math.sin/cos: equal to 1e-9, not bit for bit
-        assertEquals(rounded(Json.parse(builtText)), rounded(Json.parse(scenarioText())), "the page opened the engine's scenario");
+        assertOpenedTheEnginesScenario(builtText);
         StructuralAnalysis.Result jvm = assertSummaryMatchesTheJvm("K12");
         // derived: K_n with unit weights has W+ = n - 1 (a Hamiltonian path), W- = ⌊n²/4⌋ (a balanced cut)
         assertEquals(11.0, page.value("sum-wplus"), 1e-9);
@@ -237,8 +236,7 @@ class StructureIT {
             page.waitForAnalysis(serial, WAIT);
             long wall = (System.nanoTime() - t0) / 1_000_000;
             assertEquals("ready", page.js("return document.body.dataset.analysis;"), page.$("error-box").getText());
-            // positions are the engine's circle layout, computed by the browser's Math.sin/cos: equal to 1e-9, not bit for bit
-        assertEquals(rounded(Json.parse(builtText)), rounded(Json.parse(scenarioText())), "the page opened the engine's scenario");
+            assertOpenedTheEnginesScenario(builtText);
             StructuralAnalysis.Result jvm = assertSummaryMatchesTheJvm(f[0] + " " + f[1]);
             assertCandidates(jvm, f[0] + " " + f[1]);
             record("engine=" + page.data("engine-badge", "engine") + " " + f[0] + " " + f[1] + (f[2] == null ? "" : "x" + f[2])
@@ -449,21 +447,32 @@ class StructureIT {
         assertEquals("0", page.js("return document.getElementById('graph').dataset.crowdedLabels;"), "crowded edge labels: " + what);
     }
 
-    /** A parsed JSON value with every number rounded to 9 decimals (layout coordinates differ in the last bit between engines). */
-    static Object rounded(Object v) {
-        if (v instanceof Double) {
-            return Math.round((Double) v * 1e9) / 1e9;
-        } else if (v instanceof java.util.Map) {
-            java.util.Map<Object, Object> m = new java.util.LinkedHashMap<>();
-            ((java.util.Map<?, ?>) v).forEach((k, x) -> m.put(k, rounded(x)));
-            return m;
-        } else if (v instanceof java.util.List) {
-            java.util.List<Object> l = new java.util.ArrayList<>();
-            for (Object x : (java.util.List<?>) v) {
-                l.add(rounded(x));
+    /**
+     * The page holds the scenario the engine built: equal as JSON, numbers to TOL (vertex positions
+     * come from the layout's Math.sin/cos, which the browser computes, so they may differ from the
+     * JVM's in the last bit).
+     */
+    private void assertOpenedTheEnginesScenario(String builtText) {
+        assertSameJson(Json.parse(builtText), Json.parse(scenarioText()), "$");
+    }
+
+    private static void assertSameJson(Object expected, Object actual, String path) {
+        if (expected instanceof Double && actual instanceof Double) {
+            assertClose((Double) expected, (Double) actual, "the page opened the engine's scenario, at " + path);
+        } else if (expected instanceof Map && actual instanceof Map) {
+            Map<?, ?> e = (Map<?, ?>) expected;
+            Map<?, ?> a = (Map<?, ?>) actual;
+            assertEquals(e.keySet(), a.keySet(), "the page opened the engine's scenario, keys at " + path);
+            e.forEach((k, v) -> assertSameJson(v, a.get(k), path + "." + k));
+        } else if (expected instanceof List && actual instanceof List) {
+            List<?> e = (List<?>) expected;
+            List<?> a = (List<?>) actual;
+            assertEquals(e.size(), a.size(), "the page opened the engine's scenario, length at " + path);
+            for (int k = 0; k < e.size(); k++) {
+                assertSameJson(e.get(k), a.get(k), path + "[" + k + "]");
             }
-            return l;
+        } else {
+            assertEquals(expected, actual, "the page opened the engine's scenario, at " + path);
         }
-        return v;
     }
 }
