@@ -2,8 +2,6 @@ package spanwright.bounds;
 
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
-import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
-import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 
 /**
  * An alternating-direction augmented-Lagrangian (splitting) method for the block SDP
@@ -14,7 +12,7 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
  * <pre>
  *   y ← (AA*)⁻¹ (μ(b − A(X)) − A(Z − C))      (conjugate gradients, Jacobi preconditioner)
  *   V ← C − A*(y) − μX
- *   Z ← P₊(V),   X ← P₊(−V)/μ                 (EJML symmetric eigendecomposition per block)
+ *   Z ← P₊(V),   X ← P₊(−V)/μ                 ({@link PositivePart} per block)
  * </pre>
  * so X and Z stay PSD and complementary; μ is rebalanced every few iterations so that the
  * relative primal and dual residuals shrink together ({@link #BAL}). With {@link #symmetry} only
@@ -40,7 +38,7 @@ final class SplittingSdp {
     private final DMatrixRMaj[] tmp;
     private final double[] y;
     private final double[] gramDiagonal;
-    private final EigenDecomposition_F64<DMatrixRMaj>[] eig;
+    private final PositivePart[] eig;
     /**
      * μ is rebalanced towards primal residual = this × dual residual. The certified lower end
      * loses about |D| × the dual infeasibility and the upper end about n × the primal one, so the
@@ -62,7 +60,6 @@ final class SplittingSdp {
     private double[] orbitSum;
     private int[] orbitSize;
 
-    @SuppressWarnings({"unchecked", "rawtypes"})
     SplittingSdp(SdpProblem problem) {
         this.p = problem;
         this.m = problem.constraintCount();
@@ -81,9 +78,9 @@ final class SplittingSdp {
             double s = p.constraintNormSquared(k);
             gramDiagonal[k] = s > 0 ? s : 1;
         }
-        eig = new EigenDecomposition_F64[nb];
+        eig = new PositivePart[nb];
         for (int bl = 0; bl < nb; bl++) {
-            eig[bl] = DecompositionFactory_DDRM.eig(size[bl], true, true);
+            eig[bl] = new PositivePart(size[bl]);
         }
     }
 
@@ -235,34 +232,11 @@ final class SplittingSdp {
         return converged;
     }
 
-    /** Z = P₊(V) and N = P₊(−V) = Z − V, by one eigendecomposition of V. */
+    /** Z = P₊(V) and N = P₊(−V) = Z − V ({@link PositivePart}: eigenvectors of one side only). */
     private void split(int bl, DMatrixRMaj vb, DMatrixRMaj zOut, DMatrixRMaj nOut) {
-        int s = size[bl];
-        zOut.zero();
-        nOut.zero();
-        if (!eig[bl].decompose(vb.copy())) {
-            return;
-        }
-        double[] zd = zOut.data;
-        double[] nd = nOut.data;
-        for (int e = 0; e < s; e++) {
-            double lambda = eig[bl].getEigenvalue(e).real;
-            if (lambda == 0) {
-                continue;
-            }
-            double[] u = eig[bl].getEigenVector(e).data;
-            double[] target = lambda > 0 ? zd : nd;
-            double w = Math.abs(lambda);
-            for (int i = 0; i < s; i++) {
-                double ui = w * u[i];
-                if (ui == 0) {
-                    continue;
-                }
-                int row = i * s;
-                for (int j = 0; j < s; j++) {
-                    target[row + j] += ui * u[j];
-                }
-            }
+        if (!eig[bl].split(vb, zOut, nOut)) {
+            zOut.zero();
+            nOut.zero();
         }
     }
 
