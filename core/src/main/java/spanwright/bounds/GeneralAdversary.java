@@ -614,7 +614,13 @@ public final class GeneralAdversary implements CertifiedBound {
      * reported is rebuilt from G's top singular vectors u (zeros), v (ones), s = (u, v)/√2:
      * α'' = s², Γ'' = θ s_x G_xy s_y with θ = 1 / max_B σ_max(G_B); then diag(α'') − Γ''∘Δ_i =
      * S(I − θ G∘Δ_i)S ⪰ 0 and ⟨Γ'', J⟩ = θ σ_max(G). α' = max(α, 0) + ε·mean(α) is tried for a few
-     * ε (zero entries of α leave G undefined) and the best is kept. Cost O(|D|³) per ε (one SVD of
+     * ε (zero entries of α leave G undefined), and so is α itself with the inputs where
+     * α ≤ δ·mean(α) left out (their rows and columns of G zero: the spectral bound holds for any
+     * G ≠ 0), for a few δ; the best is kept. Near an optimum that gives some inputs no weight the
+     * splitting method's α hovers around zero there: on a random 8-variable function (seed 1) the
+     * lower end stayed at 5.578794 from iteration 1,600 to 3,700 with the shifted α' alone, and
+     * rose to 5.579046 by iteration 2,600 with inputs left out (the interval reached a relative
+     * width of 1e-5 after 3,700 iterations instead of 4,600). Cost O(|D|³) per ε or δ (one SVD of
      * G, singular values of the 2n blocks).
      */
     private static Certified certifyLower(Layout lay, double[] y) {
@@ -647,13 +653,21 @@ public final class GeneralAdversary implements CertifiedBound {
         }
         Certified best = new Certified(0, new double[pz.length], new double[size]);
         double[] eps = {0, 1e-12, 1e-10, 1e-8, 1e-6, 1e-4, 1e-2};
-        for (double e : eps) {
-            if (e == 0 && !allPositive) {
+        double[] drop = {0, 1e-10, 1e-8, 1e-6, 1e-4};
+        for (int t = 0; t < eps.length + drop.length; t++) {
+            boolean shifted = t < eps.length;
+            double e = shifted ? eps[t] : drop[t - eps.length];
+            if (shifted && e == 0 && !allPositive) {
                 continue;
             }
             double[] scale = new double[size];
             for (int k = 0; k < size; k++) {
-                scale[k] = 1 / Math.sqrt(Math.max(0, alpha[k]) + e * mean);
+                if (shifted) {
+                    scale[k] = 1 / Math.sqrt(Math.max(0, alpha[k]) + e * mean);
+                } else {
+                    // inputs the iterate gives (almost) no weight are left out of G
+                    scale[k] = alpha[k] > e * mean ? 1 / Math.sqrt(alpha[k]) : 0;
+                }
             }
             DMatrixRMaj g = new DMatrixRMaj(zeros, ones);
             for (int p = 0; p < pz.length; p++) {
