@@ -47,17 +47,19 @@ final class PositivePart {
     private final double[] e;
     private final double[] dWork;
     private final double[] eWork;
+    /** Every eigenvalue of T, ascending. */
     private final double[] all;
     private final SymmetricQrAlgorithm_DDRM values;
-    private final double[] lambda;
+    /** Eigenvectors of T (rows, for the Gram–Schmidt steps), then as columns of wm; U = Q·wm. */
     private final double[][] w;
+    private final DMatrixRMaj wm;
+    private final DMatrixRMaj u;
     // LU factors of T − λI: multipliers, diagonal, first and second superdiagonals, row swaps
     private final double[] lo;
     private final double[] dd;
     private final double[] du;
     private final double[] du2;
     private final boolean[] swap;
-    private final double[] rhs;
 
     PositivePart(int n) {
         this.n = n;
@@ -73,14 +75,14 @@ final class PositivePart {
         values = new SymmetricQrAlgorithm_DDRM();
         values.setQ(null);
         values.setFastEigenvalues(true);
-        lambda = new double[n];
         w = new double[n][];
+        wm = new DMatrixRMaj(n, n);
+        u = new DMatrixRMaj(n, n);
         lo = new double[n];
         dd = new double[n];
         du = new double[n];
         du2 = new double[n];
         swap = new boolean[n];
-        rhs = new double[n];
     }
 
     /** zOut = P₊(V), nOut = P₊(−V); V is not modified. Returns false (both zero) if no decomposition. */
@@ -133,15 +135,14 @@ final class PositivePart {
             side.zero();
         } else {
             double tol = EPS * norm;
-            System.arraycopy(all, first, lambda, 0, k);
-            DMatrixRMaj wm = new DMatrixRMaj(n, k);
+            wm.reshape(n, k);
             int clusterStart = 0;
             double previous = Double.NEGATIVE_INFINITY;
             for (int j = 0; j < k; j++) {
-                if (j > 0 && lambda[j] - lambda[j - 1] > CLUSTER * norm) {
+                if (j > 0 && all[first + j] - all[first + j - 1] > CLUSTER * norm) {
                     clusterStart = j;
                 }
-                double shift = lambda[j];
+                double shift = all[first + j];
                 if (j > clusterStart && shift - previous < 10 * tol) {
                     // equal eigenvalues: slightly different shifts keep the factorisations apart
                     shift = previous + 10 * tol;
@@ -150,19 +151,19 @@ final class PositivePart {
                 if (w[j] == null) {
                     w[j] = new double[n];
                 }
-                if (!vector(shift, j, clusterStart, norm, tol)) {
+                if (!vector(shift, j, clusterStart, tol)) {
                     return fullSplit(v, zOut, nOut);
                 }
                 for (int i = 0; i < n; i++) {
                     wm.unsafe_set(i, j, w[j][i]);
                 }
             }
-            DMatrixRMaj u = new DMatrixRMaj(n, k);
+            u.reshape(n, k);
             CommonOps_DDRM.mult(q, wm, u);
             // U|Λ|^½ (U|Λ|^½)ᵀ: EJML's outer product computes one triangle
             for (int i = 0; i < n; i++) {
                 for (int j = 0; j < k; j++) {
-                    u.unsafe_set(i, j, u.unsafe_get(i, j) * Math.sqrt(Math.abs(lambda[j])));
+                    u.unsafe_set(i, j, u.unsafe_get(i, j) * Math.sqrt(Math.abs(all[first + j])));
                 }
             }
             CommonOps_DDRM.multOuter(u, side);
@@ -179,7 +180,7 @@ final class PositivePart {
     }
 
     /** Eigenvector j of T for the shift, into w[j], by inverse iteration; false if not finite. */
-    private boolean vector(double shift, int j, int clusterStart, double norm, double tol) {
+    private boolean vector(double shift, int j, int clusterStart, double tol) {
         factor(shift, tol);
         double[] x = w[j];
         // fixed pseudo-random start in (−1, 1): the same result on every run

@@ -38,7 +38,8 @@ final class SplittingSdp {
     private final DMatrixRMaj[] tmp;
     private final double[] y;
     private final double[] gramDiagonal;
-    private final PositivePart[] eig;
+    /** The PSD projection of each block. */
+    private final PositivePart[] parts;
     /**
      * μ is rebalanced towards primal residual = this × dual residual. The certified lower end
      * loses about |D| × the dual infeasibility and the upper end about n × the primal one, so the
@@ -78,9 +79,9 @@ final class SplittingSdp {
             double s = p.constraintNormSquared(k);
             gramDiagonal[k] = s > 0 ? s : 1;
         }
-        eig = new PositivePart[nb];
+        parts = new PositivePart[nb];
         for (int bl = 0; bl < nb; bl++) {
-            eig[bl] = new PositivePart(size[bl]);
+            parts[bl] = new PositivePart(size[bl]);
         }
     }
 
@@ -171,7 +172,8 @@ final class SplittingSdp {
                 for (int i = 0; i < len; i++) {
                     vd[i] = cd[i] - vd[i] - mu * xd[i];
                 }
-                split(bl, v[bl], z[bl], tmp[bl]);
+                // Z = P₊(V), tmp = P₊(−V) (both zero if V cannot be decomposed)
+                parts[bl].split(v[bl], z[bl], tmp[bl]);
                 double[] td = tmp[bl].data;
                 double[] nd = psd[bl].data;
                 for (int i = 0; i < len; i++) {
@@ -230,14 +232,6 @@ final class SplittingSdp {
             }
         }
         return converged;
-    }
-
-    /** Z = P₊(V) and N = P₊(−V) = Z − V ({@link PositivePart}: eigenvectors of one side only). */
-    private void split(int bl, DMatrixRMaj vb, DMatrixRMaj zOut, DMatrixRMaj nOut) {
-        if (!eig[bl].split(vb, zOut, nOut)) {
-            zOut.zero();
-            nOut.zero();
-        }
     }
 
     /** Solves (AA*) y = rhs by Jacobi-preconditioned conjugate gradients, warm-started at y. */
